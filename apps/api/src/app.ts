@@ -1,0 +1,78 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { randomUUID } from 'node:crypto';
+import express from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { AppContext } from './context';
+import { errorMiddleware, notFoundHandler } from './http/error-middleware';
+import { healthRoutes } from './modules/health/routes';
+
+export const jsonBodyLimitBytes = 1024 * 1024;
+
+/** Builds the Express app without listening, so tests can run it on port 0. */
+export function createApp(ctx: AppContext): express.Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    pinoHttp({
+      logger: ctx.log,
+      genReqId: (req, res) => {
+        const incoming = req.headers['x-request-id'];
+        const requestId = typeof incoming === 'string' && /^[\w-]{8,64}$/.test(incoming) ? incoming : randomUUID();
+        res.setHeader('X-Request-Id', requestId);
+        return requestId;
+      },
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+    }),
+  );
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'upgrade-insecure-requests': null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+      strictTransportSecurity: ctx.config.APP_ORIGIN?.startsWith('https:') ?? false,
+    }),
+  );
+
+  const api = express.Router();
+  api.use(express.json({ limit: jsonBodyLimitBytes }));
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(healthRoutes(ctx));
+  api.use(notFoundHandler);
+  app.use('/api', api);
+
+  serveWebApp(app, ctx.config.WEB_DIST_DIR);
+  app.use(errorMiddleware);
+  return app;
+}
+
+/** Serves the built web app; unknown paths get index.html so the client router can answer. */
+function serveWebApp(app: express.Express, distDir: string | undefined): void {
+  if (!distDir || !existsSync(path.join(distDir, 'index.html'))) return;
+  app.use(
+    '/assets',
+    express.static(path.join(distDir, 'assets'), { immutable: true, maxAge: '365d', fallthrough: false }),
+  );
+  app.use(express.static(distDir, { index: false, maxAge: '1h' }));
+  app.get(/^(?!\/api\/).*/, (_req, res) => {
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(path.join(distDir, 'index.html'));
+  });
+}

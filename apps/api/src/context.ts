@@ -1,0 +1,34 @@
+import type { Pool } from 'mysql2/promise';
+import type { Config } from './config';
+import { createDatabase, type Database } from './db/client';
+import { createLogger, type Logger } from './logger';
+import { createMailTransport, type MailTransport } from './mail/transport';
+import { createObjectStore, type ObjectStore } from './storage/object-store';
+
+/** Everything a request or a job needs, built once per process and passed down explicitly. */
+export interface AppContext {
+  config: Config;
+  db: Database;
+  pool: Pool;
+  store: ObjectStore;
+  mail: MailTransport;
+  log: Logger;
+}
+
+export function createContext(config: Config): AppContext {
+  const { db, pool } = createDatabase(config.DATABASE_URL, config.DB_POOL_SIZE);
+  return {
+    config,
+    db,
+    pool,
+    store: createObjectStore(config),
+    mail: createMailTransport(config),
+    log: createLogger(config),
+  };
+}
+
+export async function closeContext(ctx: AppContext): Promise<void> {
+  ctx.store.destroy();
+  ctx.mail.close();
+  await ctx.pool.end();
+}

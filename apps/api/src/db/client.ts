@@ -1,0 +1,26 @@
+import { drizzle } from 'drizzle-orm/mysql2';
+import mysql from 'mysql2/promise';
+import * as schema from './schema/index';
+
+export type Database = ReturnType<typeof createDatabase>['db'];
+
+/**
+ * One pool per process. Mode 'planetscale' makes Drizzle's relational queries avoid
+ * LEFT JOIN LATERAL, which MariaDB rejects.
+ */
+export function createDatabase(url: string, poolSize = 20) {
+  const pool = mysql.createPool({
+    uri: url,
+    connectionLimit: poolSize,
+    waitForConnections: true,
+    queueLimit: 500,
+    connectTimeout: 3000,
+    enableKeepAlive: true,
+    timezone: 'Z',
+    dateStrings: false,
+    supportBigNumbers: true,
+    decimalNumbers: true,
+  });
+  const db = drizzle(pool, { schema, mode: 'planetscale' });
+  return { db, pool };
+}

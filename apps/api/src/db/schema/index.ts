@@ -1,0 +1,3 @@
+// The schema, split per area; drizzle.config.ts reads what this file exports.
+export * from './messaging';
+export * from './system';

@@ -1,0 +1,79 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { ZodError } from 'zod';
+import { AppError, errorStatus } from './app-error';
+
+const databaseDownCodes = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EPIPE',
+  'PROTOCOL_CONNECTION_LOST',
+  'PROTOCOL_SEQUENCE_TIMEOUT',
+  'ER_CON_COUNT_ERROR',
+  'ER_SERVER_SHUTDOWN',
+  'POOL_CLOSED',
+]);
+
+function causeCode(error: unknown): string | undefined {
+  let current: unknown = error;
+  for (let depth = 0; depth < 5 && current && typeof current === 'object'; depth++) {
+    const code = (current as { code?: unknown }).code;
+    if (typeof code === 'string' && databaseDownCodes.has(code)) return code;
+    current = (current as { cause?: unknown }).cause;
+  }
+  return undefined;
+}
+
+/** Turns a ZodError into `{ "a.b": "message" }` keyed by the field's path. */
+export function fieldMessages(error: ZodError): Record<string, string> {
+  const fields: Record<string, string> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '_';
+    fields[key] ??= issue.message;
+  }
+  return fields;
+}
+
+export const notFoundHandler: RequestHandler = (req, _res, next) => {
+  next(new AppError('not_found', `No API route ${req.method} ${req.baseUrl}${req.path}`));
+};
+
+/** The one place errors become HTTP: `{ error: { code, message, fields } }`. */
+export const errorMiddleware: ErrorRequestHandler = (error: unknown, req, res, _next) => {
+  let status = 500;
+  let body: { code: string; message: string; fields?: Record<string, string> } = {
+    code: 'internal',
+    message: `Something went wrong on the server. Quote request id ${String(req.id)} when reporting it.`,
+  };
+  if (error instanceof AppError) {
+    status = errorStatus[error.code];
+    body = { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) };
+    if (error.retryAfterSeconds !== undefined) res.setHeader('Retry-After', String(error.retryAfterSeconds));
+  } else if (error instanceof ZodError) {
+    status = 400;
+    body = { code: 'invalid', message: 'Some fields are not valid.', fields: fieldMessages(error) };
+  } else if (isBodyParserError(error)) {
+    status = error.status;
+    body =
+      error.type === 'entity.too.large'
+        ? { code: 'too_large', message: `The request body is larger than the limit of ${error.limit ?? ''} bytes.` }
+        : { code: 'invalid', message: 'The request body is not valid JSON.' };
+  } else if (causeCode(error)) {
+    status = 503;
+    body = { code: 'unavailable', message: 'The database is not reachable right now. Try again in a moment.' };
+    res.setHeader('Retry-After', '2');
+  }
+  if (status >= 500) req.log?.error({ err: error }, 'request failed');
+  res.status(status).json({ error: body });
+};
+
+function isBodyParserError(error: unknown): error is { status: number; type: string; limit?: number } {
+  return (
+    typeof error === 'object' &&
+    error !== null &&
+    typeof (error as { status?: unknown }).status === 'number' &&
+    typeof (error as { type?: unknown }).type === 'string' &&
+    (error as { status: number }).status >= 400 &&
+    (error as { status: number }).status < 500
+  );
+}

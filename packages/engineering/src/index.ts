@@ -1,0 +1,2 @@
+// The engineering package's public entry; its computations arrive with the engineering work.
+export {};

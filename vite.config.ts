@@ -1,0 +1,64 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+const repoRoot = fileURLToPath(new URL('.', import.meta.url));
+const apiPort = process.env.API_PORT ?? process.env.PORT ?? '3000';
+
+// One file for the web build (root apps/web, output apps/web/dist) and every vitest project.
+export default defineConfig({
+  root: fileURLToPath(new URL('./apps/web', import.meta.url)),
+  plugins: [react(), tailwindcss()],
+  build: {
+    outDir: fileURLToPath(new URL('./apps/web/dist', import.meta.url)),
+    emptyOutDir: true,
+    sourcemap: false,
+  },
+  server: {
+    port: Number(process.env.WEB_DEV_PORT ?? 5173),
+    host: '127.0.0.1',
+    proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } },
+  },
+  test: {
+    projects: [
+      {
+        root: repoRoot,
+        test: { name: 'engineering', include: ['packages/engineering/src/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        root: repoRoot,
+        test: { name: 'schemas', include: ['packages/schemas/src/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        root: repoRoot,
+        test: { name: 'api', include: ['apps/api/src/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        root: repoRoot,
+        test: { name: 'web', include: ['apps/web/src/**/*.test.{ts,tsx}'], environment: 'node' },
+      },
+      {
+        root: repoRoot,
+        test: {
+          name: 'integration',
+          include: ['tests/integration/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        root: repoRoot,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 60_000,
+          hookTimeout: 90_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
