@@ -7,6 +7,11 @@ import { pinoHttp } from 'pino-http';
 import type { AppContext } from './context';
 import { errorMiddleware, notFoundHandler } from './http/error-middleware';
 import { healthRoutes } from './modules/health/routes';
+import { originCheck } from './access/origin-check';
+import { sessionMiddleware } from './access/session-middleware';
+import { authRoutes } from './modules/auth/routes';
+import { userRoutes } from './modules/users/routes';
+import { registerRoutes } from './modules/register/routes';
 
 export const jsonBodyLimitBytes = 1024 * 1024;
 
@@ -48,13 +53,22 @@ export function createApp(ctx: AppContext): express.Express {
     }),
   );
 
+  // Before any parsing: a cross-site write is refused whatever its body.
+  app.use(originCheck(ctx.config));
+
   const api = express.Router();
   api.use(express.json({ limit: jsonBodyLimitBytes }));
   api.use((_req, res, next) => {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  api.use(sessionMiddleware(ctx));
+  // Every route declares its permission with allow() (access/policy.ts); the route table test
+  // fails for one that does not.
   api.use(healthRoutes(ctx));
+  api.use(authRoutes(ctx));
+  api.use(userRoutes(ctx));
+  api.use(registerRoutes(ctx));
   api.use(notFoundHandler);
   app.use('/api', api);
 

@@ -1,1 +1,5 @@
+export * from './common';
+export * from './register';
+export * from './auth';
+export * from './users';
 export * from './health';

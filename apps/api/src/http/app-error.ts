@@ -24,6 +24,8 @@ export class AppError extends Error {
     message: string,
     readonly fields?: Record<string, string>,
     readonly retryAfterSeconds?: number,
+    /** More for the client to act on, sent inside the error object (e.g. per-row import errors). */
+    readonly details?: Record<string, unknown>,
   ) {
     super(message);
     this.name = 'AppError';

@@ -41,13 +41,18 @@ export const notFoundHandler: RequestHandler = (req, _res, next) => {
 /** The one place errors become HTTP: `{ error: { code, message, fields } }`. */
 export const errorMiddleware: ErrorRequestHandler = (error: unknown, req, res, _next) => {
   let status = 500;
-  let body: { code: string; message: string; fields?: Record<string, string> } = {
+  let body: { code: string; message: string; fields?: Record<string, string>; [more: string]: unknown } = {
     code: 'internal',
     message: `Something went wrong on the server. Quote request id ${String(req.id)} when reporting it.`,
   };
   if (error instanceof AppError) {
     status = errorStatus[error.code];
-    body = { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) };
+    body = {
+      ...error.details,
+      code: error.code,
+      message: error.message,
+      ...(error.fields ? { fields: error.fields } : {}),
+    };
     if (error.retryAfterSeconds !== undefined) res.setHeader('Retry-After', String(error.retryAfterSeconds));
   } else if (error instanceof ZodError) {
     status = 400;

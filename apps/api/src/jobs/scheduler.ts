@@ -1,6 +1,7 @@
 import cron from 'node-cron';
 import type { AppContext } from '../context';
 import { deliverOutbox } from '../mail/outbox';
+import { purgeStaleAccessRecords } from '../modules/auth/housekeeping';
 import { withNamedLock } from './named-lock';
 
 type Job = { name: string; schedule: string; run: (ctx: AppContext) => Promise<unknown> };
@@ -8,6 +9,7 @@ type Job = { name: string; schedule: string; run: (ctx: AppContext) => Promise<u
 /** Jobs every instance schedules; each takes a MariaDB lock so only one instance works at a time. */
 export const jobs: Job[] = [
   { name: 'outbox', schedule: '*/5 * * * * *', run: (ctx) => deliverOutbox(ctx.db, ctx.mail, ctx.log) },
+  { name: 'access-housekeeping', schedule: '17 * * * *', run: (ctx) => purgeStaleAccessRecords(ctx) },
 ];
 
 export function startJobs(ctx: AppContext, list: Job[] = jobs): { stop: () => void } {

@@ -1,0 +1,93 @@
+// Writes common-passwords.txt: the guessable passwords Varden refuses (NIST SP 800-63B 3.1.1.2).
+// No list is downloaded; the entries come from the patterns people and cracking tools reach for
+// first: frequent words and names with digits, years and symbols appended, leetspeak, doubled
+// words, keyboard walks, digit runs and the product's own context. Only entries of 12 or more
+// characters matter, because shorter passwords are refused by length anyway.
+// Run: node --import tsx apps/api/src/security/generate-common-passwords.ts
+import { writeFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { passwordLength } from '@varden/schemas';
+
+const words = `password passwort passe motdepasse contraseña senha wachtwoord salasana haslo lozinka
+qwerty qwertz azerty letmein welcome admin administrator root superuser master login default
+changeme secret private access trustno1 iloveyou loveyou lovely love123 whatever nothing
+dragon monkey football baseball basketball soccer hockey tennis golfer cricket rugby
+sunshine princess shadow superman batman spiderman ironman starwars pokemon minecraft fortnite
+computer internet freedom liberty summer winter spring autumn august october november december
+january february march april june july september monday friday weekend holiday
+charlie michael jennifer jordan michelle daniel thomas jessica ashley andrew robert matthew
+joshua anthony william richard nicole amanda hannah samantha elizabeth christopher alexander
+benjamin jonathan patrick victoria natalie chocolate cookie cheese banana orange apple
+pepper ginger butterfly flower rainbow diamond silver golden purple yellow
+hello hello123 welcome1 qwerty1 killer hunter ranger tigger mustang harley corvette ferrari
+porsche mercedes yamaha ducati guitar music jesus christ heaven angel blessed faith
+family friends forever mother father sister brother babygirl babyboy sweetheart
+pass test tester testing guest user demo sample temp temporary office work company business
+manager service support system network server database security welcome2you
+maintenance engineer electric electrical electrician power energy voltage capacitor
+switchroom switchgear contactor reactor substation transformer factory plant varden korvel
+letmein! passw0rd p@ssword p@ssw0rd pa55word pa$$word passwrd pasword paswoord
+`.split(/\s+/).filter(Boolean);
+
+const suffixes = [
+  '', '1', '12', '123', '1234', '12345', '123456', '1234567', '12345678', '123456789', '1234567890',
+  '!', '!!', '!!!', '1!', '12!', '123!', '1234!', '@123', '#1', '!@#', '!@#$', '007', '69', '99', '00',
+  '01', '11', '111', '0000', '2020', '321', '4321', '54321', 'abc', 'abc123', 'qwerty', 'xyz',
+];
+
+const currentYear = 2026;
+const years = Array.from({ length: currentYear + 5 - 1950 + 1 }, (_, i) => String(1950 + i));
+
+const keyboardWalks = [
+  'qwertyuiop', 'qwertyuiopasdf', 'qwertyuiopasdfghjkl', 'asdfghjkl', 'asdfghjkl;', 'zxcvbnm', 'zxcvbnm,./',
+  'qwertyasdfgh', 'qwertyasdfghzxcvbn', 'qazwsxedcrfv', 'qazwsxedcrfvtgb', '1qaz2wsx3edc', '1qaz2wsx3edc4rfv',
+  '!qaz@wsx#edc', 'zaq12wsxcde3', 'zaq1zaq1zaq1', 'zaq1xsw2cde3', '1q2w3e4r5t6y', '1q2w3e4r5t6y7u',
+  'q1w2e3r4t5y6', 'a1s2d3f4g5h6', '123qweasdzxc', 'qweasdzxc123', 'qwe123qwe123', 'asd123asd123',
+  'qwertz123456', 'azerty123456', 'poiuytrewq', 'lkjhgfdsa', 'mnbvcxz', '0987654321', '0987654321poiuytrewq',
+  '1234567890qwertyuiop', 'qwertyuiop1234567890', '1234qwerasdfzxcv', 'qwer1234asdf', 'asdfqwer1234',
+  '123456789abc', 'abcdefghijkl', 'abcdefghijklmnop', 'abcdefghijklmnopqrstuvwxyz', 'abc123abc123',
+  'aaaaaaaaaaaa', 'qwerty123456', 'qwerty654321', 'password1234567890', 'iloveyouiloveyou',
+];
+
+const entries = new Set<string>();
+const add = (value: string) => {
+  const normalised = value.normalize('NFKC').toLowerCase();
+  if ([...normalised].length >= passwordLength.min) entries.add(normalised);
+};
+
+for (const word of words) {
+  for (const suffix of suffixes) add(word + suffix);
+  for (const year of years) {
+    add(word + year);
+    add(word + year + '!');
+    add(word + '@' + year);
+  }
+  add(word + word);
+  add(word + word + '1');
+  add(word + word + '123');
+  add('my' + word + '123');
+  add('i love ' + word);
+  add('iloveyou' + word);
+  add(word + 'password');
+}
+for (const walk of keyboardWalks) {
+  add(walk);
+  for (const suffix of suffixes) add(walk + suffix);
+}
+for (let length = passwordLength.min; length <= 20; length++) {
+  for (const digit of '0123456789') add(digit.repeat(length));
+  add('1234567890'.repeat(3).slice(0, length));
+  add('0123456789'.repeat(3).slice(0, length));
+  add('9876543210'.repeat(3).slice(0, length));
+}
+for (const a of ['12', '123', '1234', 'abc', 'qwe', 'asd', 'pass', 'love']) {
+  for (let times = 2; times <= 6; times++) add(a.repeat(times));
+}
+
+const header = [
+  '# Common passwords Varden refuses, one a line, lower case (compared case-insensitively).',
+  '# Generated by generate-common-passwords.ts from well-known patterns; edit the generator, not this file.',
+];
+const target = fileURLToPath(new URL('./common-passwords.txt', import.meta.url));
+writeFileSync(target, [...header, ...[...entries].sort()].join('\n') + '\n');
+console.log(`wrote ${entries.size} entries to ${target}`);
