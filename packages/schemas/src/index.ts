@@ -3,3 +3,5 @@ export * from './register';
 export * from './auth';
 export * from './users';
 export * from './health';
+export * from './work-orders';
+export * from './readings';

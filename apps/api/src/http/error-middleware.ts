@@ -63,6 +63,9 @@ export const errorMiddleware: ErrorRequestHandler = (error: unknown, req, res, _
       error.type === 'entity.too.large'
         ? { code: 'too_large', message: `The request body is larger than the limit of ${error.limit ?? ''} bytes.` }
         : { code: 'invalid', message: 'The request body is not valid JSON.' };
+  } else if (isSealedRefusal(error)) {
+    status = 409;
+    body = { code: 'locked', message: 'This work order is sealed (signed off); its record can no longer change.' };
   } else if (causeCode(error)) {
     status = 503;
     body = { code: 'unavailable', message: 'The database is not reachable right now. Try again in a moment.' };
@@ -81,4 +84,14 @@ function isBodyParserError(error: unknown): error is { status: number; type: str
     (error as { status: number }).status >= 400 &&
     (error as { status: number }).status < 500
   );
+}
+
+/** The database triggers of drizzle/0004 refuse changes to sealed orders with this marker. */
+function isSealedRefusal(error: unknown): boolean {
+  for (let e: unknown = error, depth = 0; e && typeof e === 'object' && depth < 5; depth++) {
+    const message = (e as { sqlMessage?: unknown; message?: unknown }).sqlMessage ?? (e as { message?: unknown }).message;
+    if (typeof message === 'string' && message.includes('VARDEN_LOCKED')) return true;
+    e = (e as { cause?: unknown }).cause;
+  }
+  return false;
 }

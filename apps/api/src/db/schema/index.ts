@@ -3,3 +3,4 @@ export * from './messaging';
 export * from './system';
 export * from './access';
 export * from './register';
+export * from './work';
