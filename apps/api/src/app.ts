@@ -12,6 +12,7 @@ import { sessionMiddleware } from './access/session-middleware';
 import { authRoutes } from './modules/auth/routes';
 import { userRoutes } from './modules/users/routes';
 import { registerRoutes } from './modules/register/routes';
+import { siteHealthRoutes } from './modules/site-health/routes';
 
 export const jsonBodyLimitBytes = 1024 * 1024;
 
@@ -69,6 +70,7 @@ export function createApp(ctx: AppContext): express.Express {
   api.use(authRoutes(ctx));
   api.use(userRoutes(ctx));
   api.use(registerRoutes(ctx));
+  api.use(siteHealthRoutes(ctx));
   api.use(notFoundHandler);
   app.use('/api', api);
 

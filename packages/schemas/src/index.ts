@@ -5,3 +5,4 @@ export * from './users';
 export * from './health';
 export * from './work-orders';
 export * from './readings';
+export * from './site-health';

@@ -1,0 +1,111 @@
+import { z } from 'zod';
+import { listQuery } from './common';
+
+// Contracts for what the readings mean for a site: lost correction, reached PF, resonance,
+// tuning of detuned steps and the estimated cost.
+
+const triangle = z.object({ kw: z.number(), kvar: z.number(), kva: z.number(), pf: z.number(), phiDeg: z.number(), leading: z.boolean() });
+
+export const bandCounts = z.object({
+  healthy: z.number(),
+  watch: z.number(),
+  replace: z.number(),
+  remeasure: z.number(),
+  noReading: z.number(),
+});
+
+export const stepHealth = z.object({
+  id: z.number(),
+  number: z.number(),
+  ratedKvar: z.number(),
+  installedKvar: z.number(),
+  effectiveKvar: z.number(),
+  effectivePct: z.number(),
+  bands: bandCounts,
+  tuning: z
+    .object({
+      designTuningHz: z.number(),
+      tuningHz: z.number(),
+      shiftPct: z.number(),
+      nearestHarmonic: z.number(),
+      nearestHarmonicHz: z.number(),
+      distancePct: z.number(),
+      fifthHarmonicHz: z.number(),
+      tuningShifted: z.boolean(),
+      nearHarmonic: z.boolean(),
+    })
+    .nullable(),
+  reasons: z.array(z.string()),
+});
+
+export const resonanceCase = z.object({
+  stepsOn: z.array(z.number()),
+  kvar: z.number(),
+  order: z.number(),
+  nearestHarmonic: z.number(),
+  distancePct: z.number(),
+  warning: z.boolean(),
+});
+
+export const bankHealth = z.object({
+  id: z.number(),
+  name: z.string(),
+  detuned: z.boolean(),
+  detuningFactor: z.number().nullable(),
+  installedKvar: z.number(),
+  effectiveKvar: z.number(),
+  steps: z.array(stepHealth),
+  /** For undetuned steps only: step 1, 1+2, … switched in, with the transformer. */
+  resonance: z.array(resonanceCase),
+});
+
+export const siteHealth = z.object({
+  siteId: z.number(),
+  siteName: z.string(),
+  voltageV: z.number(),
+  frequencyHz: z.number(),
+  targetPf: z.number(),
+  installedKvar: z.number(),
+  effectiveKvar: z.number(),
+  lostKvar: z.number(),
+  lostPct: z.number(),
+  bands: bandCounts,
+  /** Where the load came from: the latest controller reading, the planner's entry, or nowhere. */
+  load: z
+    .object({
+      source: z.enum(['controller-reading', 'planned-load']),
+      kw: z.number(),
+      loadKvar: z.number(),
+      loadPf: z.number(),
+      recordedAt: z.string().nullable(),
+      note: z.string(),
+    })
+    .nullable(),
+  reachedPf: z.number().nullable(),
+  leading: z.boolean().nullable(),
+  requiredKvar: z.number().nullable(),
+  missingKvar: z.number().nullable(),
+  targetMet: z.boolean().nullable(),
+  triangle: z.object({ asInstalled: triangle, now: triangle }).nullable(),
+  cost: z
+    .object({
+      estimate: z.literal(true),
+      currency: z.string(),
+      pricePerKvarh: z.number(),
+      hoursPerMonth: z.number(),
+      basis: z.string(),
+      extraKvarhPerMonth: z.number(),
+      lostMonthlyCost: z.number(),
+      assumptions: z.array(z.string()),
+    })
+    .nullable(),
+  banks: z.array(bankHealth),
+  engineeringVersion: z.string(),
+});
+export type SiteHealth = z.infer<typeof siteHealth>;
+
+export const siteHealthQuery = z.object({
+  hoursPerMonth: z.coerce.number().min(1, 'At least 1 hour').max(744, 'At most 744 hours in a month').default(500),
+});
+
+export const fleetQuery = listQuery(['risk', 'name'] as const, 'risk');

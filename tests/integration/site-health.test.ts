@@ -1,0 +1,130 @@
+import { bankResonance, correctionKvar, detunedStepKvar, reactorInductanceMH, ratedCapacitanceUF } from '@varden/engineering';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { createSite, createUser, signIn } from '../support/factories';
+import { startTestApp, type TestApp } from '../support/test-app';
+import { banks, capacitorUnits, reactors, steps } from '../../apps/api/src/db/schema/index';
+
+let app: TestApp;
+let supervisor: string;
+
+beforeAll(async () => {
+  app = await startTestApp();
+  const s = await createUser(app.ctx, { roles: ['supervisor'] });
+  supervisor = await signIn(app, s.email, s.password);
+});
+afterAll(async () => {
+  await app.close();
+});
+
+async function addBank(siteId: number, opts: { detuningFactor: number | null; steps: number; unitKvar: number; unitVoltageV: number }) {
+  const { db } = app.ctx;
+  const [bank] = await db
+    .insert(banks)
+    .values({ siteId, name: `Bank ${Math.random()}`, detuned: opts.detuningFactor !== null, detuningFactor: opts.detuningFactor })
+    .$returningId();
+  for (let n = 1; n <= opts.steps; n++) {
+    const [step] = await db.insert(steps).values({ bankId: bank!.id, number: n, ratedKvar: 25 }).$returningId();
+    const legUF = ratedCapacitanceUF({ kvar: opts.unitKvar, voltageV: opts.unitVoltageV, frequencyHz: 50, connection: 'delta' });
+    await db.insert(capacitorUnits).values({
+      stepId: step!.id,
+      position: 1,
+      nameplateKvar: opts.unitKvar,
+      nameplateVoltageV: opts.unitVoltageV,
+      nameplateFrequencyHz: 50,
+      connection: 'delta',
+      capacitanceUF: legUF,
+    });
+    if (opts.detuningFactor !== null) {
+      await db.insert(reactors).values({
+        stepId: step!.id,
+        inductanceMH: reactorInductanceMH({ detuningFactor: opts.detuningFactor, legsUF: [legUF, legUF, legUF], frequencyHz: 50 }),
+        ratedCurrentA: 80,
+        detuningFactor: opts.detuningFactor,
+      });
+    }
+  }
+  return bank!.id;
+}
+
+describe('GET /api/sites/:id/health', () => {
+  test('an undetuned bank with no readings yet: hand-worked PF, missing kvar and resonance', async () => {
+    const siteId = await createSite(app.ctx, {
+      transformerKva: 1000,
+      transformerImpedancePct: 6,
+      targetPf: 0.95,
+      tariffBasis: 'pf-threshold',
+      tariffLimit: 0.9,
+      pricePerKvarh: 0.02,
+      plannedLoadKw: 500,
+      plannedLoadPf: 0.8,
+    });
+    await addBank(siteId, { detuningFactor: null, steps: 4, unitKvar: 25, unitVoltageV: 400 });
+    const res = await app.request(`/api/sites/${siteId}/health`, { cookie: supervisor });
+    expect(res.status).toBe(200);
+    const health = await res.json();
+
+    expect(health.installedKvar).toBeCloseTo(100, 9);
+    expect(health.effectiveKvar).toBeCloseTo(100, 9);
+    expect(health.lostKvar).toBeCloseTo(0, 9);
+    expect(health.bands).toEqual({ healthy: 0, watch: 0, replace: 0, remeasure: 0, noReading: 4 });
+    expect(health.load).toMatchObject({ source: 'planned-load', kw: 500, loadPf: 0.8 });
+    // Hand-worked [DERIVED] engineering-reference.md §6: Q_load = 500·tan(acos 0.8) = 375 kvar;
+    // with 100 kvar in, Q = 275 kvar and PF = 500/√(500² + 275²) = 0.8762.
+    expect(health.load.loadKvar).toBeCloseTo(375, 6);
+    expect(health.reachedPf).toBeCloseTo(0.8762, 4);
+    // [STD-summary] IEEE 141 ch. 8 kW multiplier 0.80→0.95 = 0.421: 500 kW needs ≈ 210.7 kvar, 110.7 missing.
+    expect(health.requiredKvar).toBeCloseTo(500 * 0.421, 0);
+    expect(health.requiredKvar).toBeCloseTo(correctionKvar({ kw: 500, pfFrom: 0.8, pfTo: 0.95 }), 9);
+    expect(health.missingKvar).toBeCloseTo(health.requiredKvar - 100, 9);
+    expect(health.triangle.now).toMatchObject({ kw: 500 });
+    expect(health.triangle.now.kvar).toBeCloseTo(275, 6);
+    // Nothing is lost yet, so the estimate of what lost correction costs is zero.
+    expect(health.cost).toMatchObject({ estimate: true, currency: 'EUR', hoursPerMonth: 500, lostMonthlyCost: 0 });
+
+    // [DERIVED] §5 h = √(S_sc/Q): S_sc = 1000/0.06 = 16,667 kVA; 100 kvar → h = 12.9, within 10 % of the 13th.
+    const [bank] = health.banks;
+    const expected = bankResonance({ transformerKva: 1000, impedancePct: 6, stepsKvar: [25, 25, 25, 25] });
+    expect(bank.resonance).toHaveLength(4);
+    bank.resonance.forEach((r: { kvar: number; order: number; warning: boolean }, i: number) => {
+      expect(r.kvar).toBeCloseTo(25 * (i + 1), 9);
+      expect(r.order).toBeCloseTo(expected[i]!.order, 9);
+      expect(r.warning).toBe(expected[i]!.warning);
+    });
+    expect(bank.resonance[3].order).toBeCloseTo(Math.sqrt(1000 / 0.06 / 100), 6);
+    expect(bank.resonance[3]).toMatchObject({ nearestHarmonic: 13, warning: true });
+  });
+
+  test('a detuned step counts at network voltage through its reactor, tuned at its design frequency', async () => {
+    const siteId = await createSite(app.ctx, { plannedLoadKw: 400, plannedLoadPf: 0.75 });
+    await addBank(siteId, { detuningFactor: 0.07, steps: 2, unitKvar: 56, unitVoltageV: 440 });
+    const health = await (await app.request(`/api/sites/${siteId}/health`, { cookie: supervisor })).json();
+    // [DERIVED] §4: Q_eff = Q_CR·(U_N/U_CR)²/(1 − p) = 56·(400/440)²/0.93 ≈ 49.8 kvar per step.
+    const perStep = detunedStepKvar({ capacitorKvar: 56, capacitorVoltageV: 440, networkVoltageV: 400, detuningFactor: 0.07 });
+    expect(perStep).toBeCloseTo(49.8, 1);
+    expect(health.installedKvar).toBeCloseTo(2 * perStep, 6);
+    const step = health.banks[0].steps[0];
+    // [COMMON] §4: a 7 % step at 50 Hz is tuned to 189 Hz.
+    expect(step.tuning.designTuningHz).toBeCloseTo(189.0, 1);
+    expect(step.tuning.tuningHz).toBeCloseTo(189.0, 1);
+    expect(step.tuning).toMatchObject({ fifthHarmonicHz: 250, tuningShifted: false });
+    expect(health.banks[0].resonance).toEqual([]);
+  });
+
+  test('a site with no load known says so instead of guessing', async () => {
+    const siteId = await createSite(app.ctx);
+    await addBank(siteId, { detuningFactor: null, steps: 1, unitKvar: 25, unitVoltageV: 400 });
+    const health = await (await app.request(`/api/sites/${siteId}/health`, { cookie: supervisor })).json();
+    expect(health).toMatchObject({ load: null, reachedPf: null, missingKvar: null, triangle: null, cost: null });
+  });
+
+  test('a viewer of another site gets 404, an unknown site 404, a bad hours value 400', async () => {
+    const granted = await createSite(app.ctx);
+    const other = await createSite(app.ctx);
+    const viewer = await createUser(app.ctx, { roles: ['viewer'], siteIds: [granted] });
+    const cookie = await signIn(app, viewer.email, viewer.password);
+    expect((await app.request(`/api/sites/${granted}/health`, { cookie })).status).toBe(200);
+    expect((await app.request(`/api/sites/${other}/health`, { cookie })).status).toBe(404);
+    expect((await app.request(`/api/sites/999999999/health`, { cookie: supervisor })).status).toBe(404);
+    expect((await app.request(`/api/sites/${granted}/health?hoursPerMonth=-3`, { cookie: supervisor })).status).toBe(400);
+  });
+});
