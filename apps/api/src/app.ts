@@ -13,6 +13,7 @@ import { authRoutes } from './modules/auth/routes';
 import { userRoutes } from './modules/users/routes';
 import { registerRoutes } from './modules/register/routes';
 import { siteHealthRoutes } from './modules/site-health/routes';
+import { fleetRoutes } from './modules/fleet/routes';
 
 export const jsonBodyLimitBytes = 1024 * 1024;
 
@@ -71,6 +72,7 @@ export function createApp(ctx: AppContext): express.Express {
   api.use(userRoutes(ctx));
   api.use(registerRoutes(ctx));
   api.use(siteHealthRoutes(ctx));
+  api.use(fleetRoutes(ctx));
   api.use(notFoundHandler);
   app.use('/api', api);
 

@@ -1,5 +1,4 @@
 import { z } from 'zod';
-import { listQuery } from './common';
 
 // Contracts for what the readings mean for a site: lost correction, reached PF, resonance,
 // tuning of detuned steps and the estimated cost.
@@ -108,4 +107,39 @@ export const siteHealthQuery = z.object({
   hoursPerMonth: z.coerce.number().min(1, 'At least 1 hour').max(744, 'At most 744 hours in a month').default(500),
 });
 
-export const fleetQuery = listQuery(['risk', 'name'] as const, 'risk');
+
+export const fleetSite = z.object({
+  siteId: z.number(),
+  siteName: z.string(),
+  bands: bandCounts,
+  openActionFlags: z.number(),
+  openAdvisoryFlags: z.number(),
+  /** Open tuning-drift flags: detuned steps whose tuning has crept towards a harmonic. */
+  stepsNearHarmonic: z.number(),
+  overdueOrders: z.number(),
+  projectedReplacements: z.number(),
+  /** Points: replace 10, open action flag 5, overdue order 3, remeasure 2, watch 1 (common practice). */
+  risk: z.number(),
+});
+
+export const fleetOverview = z.object({
+  sites: z.array(fleetSite),
+  totals: bandCounts,
+  projectedReplacements: z.array(
+    z.object({
+      unitId: z.number(),
+      siteId: z.number(),
+      siteName: z.string(),
+      bankId: z.number(),
+      bankName: z.string(),
+      stepNumber: z.number(),
+      position: z.number(),
+      serial: z.string(),
+      ratePctPerYear: z.number(),
+      replaceBy: z.string(),
+      latestDeviationPct: z.number(),
+    }),
+  ),
+  overdueOrders: z.array(z.object({ id: z.number(), title: z.string(), siteId: z.number(), siteName: z.string(), dueOn: z.string(), state: z.string() })),
+});
+export type FleetOverview = z.infer<typeof fleetOverview>;
