@@ -1,5 +1,7 @@
 import {
+  CreateBucketCommand,
   DeleteObjectCommand,
+  ListObjectsV2Command,
   GetObjectCommand,
   HeadBucketCommand,
   PutObjectCommand,
@@ -13,6 +15,10 @@ export interface ObjectStore {
   put(key: string, body: Buffer, contentType: string): Promise<void>;
   get(key: string): Promise<{ body: Readable; contentType: string | undefined; length: number | undefined }>;
   remove(key: string): Promise<void>;
+  /** Every key in the bucket (for backups). */
+  list(): Promise<string[]>;
+  /** Creates the bucket when it does not exist yet (for restores). */
+  ensureBucket(): Promise<void>;
   ping(): Promise<void>;
   destroy(): void;
 }
@@ -37,6 +43,19 @@ export function createObjectStore(config: Config): ObjectStore {
     },
     async remove(key) {
       await client.send(new DeleteObjectCommand({ Bucket, Key: key }));
+    },
+    async list() {
+      const keys: string[] = [];
+      let ContinuationToken: string | undefined;
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket, ContinuationToken }));
+        for (const o of page.Contents ?? []) if (o.Key) keys.push(o.Key);
+        ContinuationToken = page.IsTruncated ? page.NextContinuationToken : undefined;
+      } while (ContinuationToken);
+      return keys;
+    },
+    async ensureBucket() {
+      await client.send(new HeadBucketCommand({ Bucket })).catch(() => client.send(new CreateBucketCommand({ Bucket })));
     },
     async ping() {
       await client.send(new HeadBucketCommand({ Bucket }));
