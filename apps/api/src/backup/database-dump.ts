@@ -16,7 +16,9 @@ export function clientArgs(databaseUrl: string): { args: string[]; database: str
 
 function run(command: string, args: string[], password: string, io: { stdin?: string; stdout?: string }): Promise<void> {
   return new Promise((resolve, reject) => {
-    // The password goes through the environment, never the command line (visible in ps).
+    // The password goes through the environment, never the command line (visible in ps); the
+    // child inherits this process's environment, which is not a setting read here.
+    // eslint-disable-next-line no-restricted-properties
     const child = spawn(command, args, { env: { ...process.env, MYSQL_PWD: password }, stdio: ['pipe', 'pipe', 'pipe'] });
     let stderr = '';
     child.stderr.on('data', (c: Buffer) => (stderr += c.toString()));
