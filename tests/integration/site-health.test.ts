@@ -128,3 +128,25 @@ describe('GET /api/sites/:id/health', () => {
     expect((await app.request(`/api/sites/${granted}/health?hoursPerMonth=-3`, { cookie: supervisor })).status).toBe(400);
   });
 });
+
+describe('the monthly site summary mail', () => {
+  test('goes once a month to the supervisors and to the viewers granted the site, with a link', async () => {
+    const { queueMonthlySummaries } = await import('../../apps/api/src/modules/site-health/monthly-summary');
+    const { outbox } = await import('../../apps/api/src/db/schema/index');
+    const { like } = await import('drizzle-orm');
+    const siteId = await createSite(app.ctx, { plannedLoadKw: 500, plannedLoadPf: 0.8 });
+    await addBank(siteId, { detuningFactor: null, steps: 2, unitKvar: 25, unitVoltageV: 400 });
+    const viewer = await createUser(app.ctx, { roles: ['viewer'], siteIds: [siteId] });
+    const when = new Date('2031-03-01T06:45:00Z'); // a month no other test uses
+    await queueMonthlySummaries(app.ctx, when);
+    const again = await queueMonthlySummaries(app.ctx, when);
+    expect(again).toBe(0);
+    const rows = await app.ctx.db.select().from(outbox).where(like(outbox.kind, `site-summary:2031-03:${siteId}:%`));
+    const recipients = rows.map((r) => r.toAddress);
+    expect(recipients).toContain(viewer.email);
+    expect(new Set(recipients).size).toBe(recipients.length);
+    const mail = rows.find((r) => r.toAddress === viewer.email)!;
+    expect(mail.textBody).toContain(`${app.url}/sites/${siteId}/health`);
+    expect(mail.textBody).toMatch(/Installed 50\.0 kvar, effective 50\.0 kvar, lost 0\.0 kvar/);
+  });
+});
