@@ -108,6 +108,11 @@ describe('GET /api/sites/:id/health', () => {
     expect(step.tuning.tuningHz).toBeCloseTo(189.0, 1);
     expect(step.tuning).toMatchObject({ fifthHarmonicHz: 250, tuningShifted: false });
     expect(health.banks[0].resonance).toEqual([]);
+
+    const pdf = await app.request(`/api/sites/${siteId}/health/report.pdf`, { cookie: supervisor });
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get('content-type')).toBe('application/pdf');
+    expect(Buffer.from(await pdf.arrayBuffer()).subarray(0, 5).toString()).toBe('%PDF-');
   });
 
   test('a site with no load known says so instead of guessing', async () => {
