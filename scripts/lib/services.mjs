@@ -355,3 +355,23 @@ export function reportFatal(error) {
   }
   process.exitCode = 1;
 }
+
+/**
+ * A MariaDB of its own for fault tests: started in `dataDir` on `port`, and stoppable and
+ * restartable on the same data, as a real outage and recovery would be.
+ */
+export async function startStandaloneMariaDb({ dataDir, port, database = 'varden_fault' }) {
+  let registry = children();
+  const options = { dataDir, port, database, user: 'varden', password: 'varden-local', log: () => {}, registry };
+  const first = await startMariaDb(options);
+  return {
+    url: first.url,
+    async stop() {
+      await registry.stopAll();
+    },
+    async restart() {
+      registry = children();
+      await startMariaDb({ ...options, registry });
+    },
+  };
+}

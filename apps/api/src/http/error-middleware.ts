@@ -19,6 +19,9 @@ function causeCode(error: unknown): string | undefined {
   for (let depth = 0; depth < 5 && current && typeof current === 'object'; depth++) {
     const code = (current as { code?: unknown }).code;
     if (typeof code === 'string' && databaseDownCodes.has(code)) return code;
+    // mysql2 reports a command on a connection the server closed with this message and no code.
+    const message = (current as { message?: unknown }).message;
+    if (typeof message === 'string' && /connection is in closed state|Connection lost: The server closed/i.test(message)) return 'CLOSED';
     current = (current as { cause?: unknown }).cause;
   }
   return undefined;
@@ -71,7 +74,8 @@ export const errorMiddleware: ErrorRequestHandler = (error: unknown, req, res, _
     body = { code: 'unavailable', message: 'The database is not reachable right now. Try again in a moment.' };
     res.setHeader('Retry-After', '2');
   }
-  if (status >= 500) req.log?.error({ err: error }, 'request failed');
+  if (status === 503) req.log?.warn({ err: error }, 'a dependency is down');
+  else if (status >= 500) req.log?.error({ err: error }, 'request failed');
   res.status(status).json({ error: body });
 };
 
