@@ -70,7 +70,7 @@ describe('sites', () => {
     expect(list.status).toBe(200);
     const page = await list.json();
     expect(page.total).toBe(1);
-    expect(page.items[0]).toMatchObject({ id: created.body.id, voltageV: 400, frequencyHz: 50 });
+    expect(page.items[0]).toMatchObject({ id: created.body.id, voltageV: 400, frequencyHz: 50, bankCount: 0 });
   });
 
   test('invalid input gets 400 with a message per field and stores nothing', async () => {
@@ -138,8 +138,12 @@ describe('banks and steps', () => {
     expect(res.body.error.fields).toHaveProperty('detuningFactor');
   });
 
-  test('steps are numbered once per bank', async () => {
-    const { bank } = await makeStep();
+  test('steps are numbered once per bank; sites and banks count their children', async () => {
+    const { bank, site } = await makeStep();
+    await post('/api/banks', { siteId: site.id, name: 'Bank B' });
+    const listed = await (await app.request(`/api/sites?q=${encodeURIComponent(site.name)}`, { cookie: planner })).json();
+    expect(listed.items[0].bankCount).toBe(2);
+    expect((await (await app.request(`/api/banks/${bank.id}`, { cookie: planner })).json()).stepCount).toBe(1);
     const again = await post('/api/steps', { bankId: bank.id, number: 1, ratedKvar: 25 });
     expect(again.status).toBe(409);
     const list = await (await app.request(`/api/steps?bankId=${bank.id}`, { cookie: technician })).json();

@@ -7,7 +7,7 @@ import { deleteUnreferenced, isDuplicateKey, offset, orderBy, updateVersioned } 
 import { AppError } from '../../http/app-error';
 import { assertInScope, inScope, type SiteScope } from './scope-filter';
 
-const stepCount = sql<number>`(SELECT COUNT(*) FROM ${steps} WHERE ${steps.bankId} = ${banks.id} AND ${steps.retiredAt} IS NULL)`.mapWith(Number);
+const stepCount = sql<number>`(SELECT COUNT(*) FROM \`steps\` s WHERE s.\`bank_id\` = \`banks\`.\`id\` AND s.\`retired_at\` IS NULL)`.mapWith(Number);
 const columns = { bank: banks, siteName: sites.name, stepCount };
 type BankRow = { bank: typeof banks.$inferSelect; siteName: string; stepCount: number };
 

@@ -1,6 +1,6 @@
 import { and, count, eq, isNull, like, sql } from 'drizzle-orm';
 import type { Database } from '../../db/client';
-import { banks, sites } from '../../db/schema/index';
+import { sites } from '../../db/schema/index';
 import { offset, orderBy } from '../../db/versioned';
 import { inScope, type SiteScope } from './scope-filter';
 
@@ -8,7 +8,9 @@ export type SiteRow = typeof sites.$inferSelect & { bankCount: number };
 
 const sortable = { name: sites.name, voltageV: sites.voltageV, createdAt: sites.createdAt };
 
-const bankCount = sql<number>`(SELECT COUNT(*) FROM ${banks} WHERE ${banks.siteId} = ${sites.id} AND ${banks.retiredAt} IS NULL)`.mapWith(Number);
+// Spelled out with table names: in a one-table query Drizzle leaves columns unqualified, and
+// the correlated subquery would then compare banks with themselves.
+const bankCount = sql<number>`(SELECT COUNT(*) FROM \`banks\` b WHERE b.\`site_id\` = \`sites\`.\`id\` AND b.\`retired_at\` IS NULL)`.mapWith(Number);
 
 export async function listSites(
   db: Database,
