@@ -46,3 +46,12 @@ export async function visit(page: Page, url: string): Promise<void> {
   await page.goto(url, { waitUntil: 'networkidle' });
   await expectAccessible(page);
 }
+
+/**
+ * Gives a browser context the session behind a Cookie header value (from factories' signIn), so
+ * a journey that is not about signing in can start on its page.
+ */
+export async function adoptSession(context: BrowserContext, appUrl: string, cookie: string): Promise<void> {
+  const separator = cookie.indexOf('=');
+  await context.addCookies([{ name: cookie.slice(0, separator), value: cookie.slice(separator + 1), url: appUrl }]);
+}

@@ -1,11 +1,14 @@
-import type { Role, User } from '@varden/schemas';
+import { ratedCapacitanceUF, ratedLegUF, reactorInductanceMH, type Connection } from '@varden/engineering';
+import { workOrderStates, type Role, type User, type WorkOrderKind, type WorkOrderState } from '@varden/schemas';
 import type { AppContext } from '../../apps/api/src/context';
 import { startSession } from '../../apps/api/src/access/sessions';
 import { sessionCookieName } from '../../apps/api/src/access/session-cookie';
 import { hashPassword } from '../../apps/api/src/security/password-hashing';
 import { findUserRecord, insertUser, replaceRoles, replaceSiteGrants } from '../../apps/api/src/modules/users/repository';
 import { toUser } from '../../apps/api/src/modules/users/to-user';
-import { sites } from '../../apps/api/src/db/schema/index';
+import { eq } from 'drizzle-orm';
+import { banks, capacitorUnits, contactors, fuseSets, outbox, reactors, readings, sites, steps, workOrders } from '../../apps/api/src/db/schema/index';
+import { deliverOutbox } from '../../apps/api/src/mail/outbox';
 import type { TestApp } from './test-app';
 import { unique } from './test-app';
 
@@ -96,4 +99,227 @@ export async function createSite(ctx: AppContext, values: Partial<typeof sites.$
     })
     .$returningId();
   return created!.id;
+}
+
+export interface CreatedBank {
+  siteId: number;
+  bankId: number;
+  stepIds: number[];
+  unitIds: number[];
+  contactorIds: number[];
+  fuseSetIds: number[];
+}
+
+/**
+ * A site with one bank of `steps` steps (default 2), each with one 50 kvar 400 V 50 Hz delta
+ * unit (capacitance from the nameplate), a contactor and a fuse set, written straight to the
+ * database. `dischargeTimesS` sets the units' discharge times in step order.
+ */
+export async function createBankWithUnits(
+  ctx: AppContext,
+  options: { steps?: number; dischargeTimesS?: number[]; siteValues?: Partial<typeof sites.$inferInsert> } = {},
+): Promise<CreatedBank> {
+  const siteId = await createSite(ctx, options.siteValues);
+  const [bank] = await ctx.db.insert(banks).values({ siteId, name: unique('Bank'), location: 'Test switchroom' }).$returningId();
+  const result: CreatedBank = { siteId, bankId: bank!.id, stepIds: [], unitIds: [], contactorIds: [], fuseSetIds: [] };
+  const legUF = ratedCapacitanceUF({ kvar: 50, voltageV: 400, frequencyHz: 50, connection: 'delta' });
+  for (let n = 1; n <= (options.steps ?? 2); n++) {
+    const [step] = await ctx.db.insert(steps).values({ bankId: result.bankId, number: n, ratedKvar: 50 }).$returningId();
+    const [unit] = await ctx.db
+      .insert(capacitorUnits)
+      .values({
+        stepId: step!.id,
+        position: 1,
+        nameplateKvar: 50,
+        nameplateVoltageV: 400,
+        nameplateFrequencyHz: 50,
+        connection: 'delta',
+        capacitanceUF: legUF,
+        dischargeTimeS: options.dischargeTimesS?.[n - 1] ?? 180,
+        serial: unique('SN'),
+      })
+      .$returningId();
+    const [contactor] = await ctx.db.insert(contactors).values({ stepId: step!.id, ratedOperations: 100_000 }).$returningId();
+    const [fuseSet] = await ctx.db.insert(fuseSets).values({ stepId: step!.id, ratedCurrentA: 100 }).$returningId();
+    result.stepIds.push(step!.id);
+    result.unitIds.push(unit!.id);
+    result.contactorIds.push(contactor!.id);
+    result.fuseSetIds.push(fuseSet!.id);
+  }
+  return result;
+}
+
+/**
+ * A work order written straight to the database in any state, with the fields that state
+ * implies (a sealed one is signed and locked). For tests that start from a given state.
+ */
+export async function createWorkOrder(
+  ctx: AppContext,
+  options: {
+    bank: { siteId: number; bankId: number };
+    state?: WorkOrderState;
+    assigneeId?: number | null;
+    createdById?: number | null;
+    dueOn?: string;
+    kind?: WorkOrderKind;
+    title?: string;
+    flagId?: number | null;
+    planId?: number | null;
+  },
+): Promise<number> {
+  const state = options.state ?? 'queued';
+  const now = new Date();
+  const reached = (s: WorkOrderState) => workOrderStates.indexOf(state) >= workOrderStates.indexOf(s) && state !== 'withdrawn';
+  const [created] = await ctx.db
+    .insert(workOrders)
+    .values({
+      kind: options.kind ?? 'inspection',
+      siteId: options.bank.siteId,
+      bankId: options.bank.bankId,
+      planId: options.planId ?? null,
+      flagId: options.flagId ?? null,
+      title: options.title ?? unique('Order'),
+      instructions: 'Test order',
+      checklist: ['capacitance'],
+      dueOn: options.dueOn ?? now.toISOString().slice(0, 10),
+      assigneeId: options.assigneeId ?? null,
+      createdById: options.createdById ?? null,
+      state,
+      safetyAcknowledgedAt: reached('on-site') ? now : null,
+      safetyAcknowledgedById: reached('on-site') ? (options.assigneeId ?? null) : null,
+      submittedAt: reached('awaiting-review') ? now : null,
+      ...(state === 'sealed'
+        ? { signedAt: now, signedByName: 'Test signer', signatureMeaning: 'Test signature', locked: true }
+        : {}),
+    })
+    .$returningId();
+  return created!.id;
+}
+
+/** One step of a bank as the readings and photos tests need it: its units and components. */
+export interface StepFixture {
+  siteId: number;
+  bankId: number;
+  stepId: number;
+  unitIds: number[];
+  contactorId: number;
+  reactorId: number | null;
+  fuseSetId: number;
+  /** The reactor's inductance per line (detuned banks), mH. */
+  reactorInductanceMH: number | null;
+}
+
+/**
+ * A site with one bank of one step (detuned when `detuningFactor` is given): `units` capacitor units (50 kvar 400 V 50 Hz delta unless
+ * told otherwise, capacitance from the nameplate), a contactor rated for 100 000 operations,
+ * a 100 A gG fuse set and, for a detuned bank, a reactor sized for the detuning factor
+ * (L = p/(ω²·C_star), engineering-reference §4).
+ */
+export async function createStepWithUnits(
+  ctx: AppContext,
+  options: {
+    units?: number;
+    nameplate?: { kvar?: number; voltageV?: number; frequencyHz?: number; connection?: Connection };
+    unit?: Partial<typeof capacitorUnits.$inferInsert>;
+    detuningFactor?: number;
+    withReactor?: boolean;
+    site?: Partial<typeof sites.$inferInsert>;
+    contactor?: Partial<typeof contactors.$inferInsert>;
+  } = {},
+): Promise<StepFixture> {
+  const siteId = await createSite(ctx, options.site);
+  const detuned = options.detuningFactor !== undefined;
+  const [bank] = await ctx.db
+    .insert(banks)
+    .values({ siteId, name: unique('Bank'), detuned, detuningFactor: options.detuningFactor ?? null })
+    .$returningId();
+  const [step] = await ctx.db.insert(steps).values({ bankId: bank!.id, number: 1, ratedKvar: 50 * (options.units ?? 1) }).$returningId();
+  const nameplate = {
+    kvar: options.nameplate?.kvar ?? 50,
+    voltageV: options.nameplate?.voltageV ?? 400,
+    frequencyHz: options.nameplate?.frequencyHz ?? 50,
+    connection: options.nameplate?.connection ?? ('delta' as Connection),
+  };
+  const unitIds: number[] = [];
+  for (let position = 1; position <= (options.units ?? 1); position++) {
+    const [unit] = await ctx.db
+      .insert(capacitorUnits)
+      .values({
+        stepId: step!.id,
+        position,
+        nameplateKvar: nameplate.kvar,
+        nameplateVoltageV: nameplate.voltageV,
+        nameplateFrequencyHz: nameplate.frequencyHz,
+        connection: nameplate.connection,
+        capacitanceUF: ratedCapacitanceUF(nameplate),
+        ...options.unit,
+      })
+      .$returningId();
+    unitIds.push(unit!.id);
+  }
+  const [contactor] = await ctx.db.insert(contactors).values({ stepId: step!.id, ratedOperations: 100_000, ...options.contactor }).$returningId();
+  const [fuseSet] = await ctx.db.insert(fuseSets).values({ stepId: step!.id, ratedCurrentA: 100 }).$returningId();
+  let reactorId: number | null = null;
+  let inductanceMH: number | null = null;
+  if (detuned && options.withReactor !== false) {
+    const leg = ratedLegUF(nameplate) * unitIds.length;
+    inductanceMH = reactorInductanceMH({ detuningFactor: options.detuningFactor!, legsUF: [leg, leg, leg], frequencyHz: options.site?.frequencyHz ?? 50 });
+    const [reactor] = await ctx.db
+      .insert(reactors)
+      .values({ stepId: step!.id, inductanceMH, ratedCurrentA: 80, detuningFactor: options.detuningFactor! })
+      .$returningId();
+    reactorId = reactor!.id;
+  }
+  return { siteId, bankId: bank!.id, stepId: step!.id, unitIds, contactorId: contactor!.id, reactorId, fuseSetId: fuseSet!.id, reactorInductanceMH: inductanceMH };
+}
+
+/**
+ * A capacitor reading written straight to the readings table (no evaluation run): for work-order
+ * tests that need an order to hold a reading with a given result.
+ */
+export async function insertUnitReading(
+  ctx: AppContext,
+  options: {
+    workOrderId: number;
+    unitId: number;
+    recordedById: number;
+    deviationPct: number;
+    band: 'healthy' | 'watch' | 'replace' | 'remeasure';
+    recordedAt?: Date;
+  },
+): Promise<number> {
+  const legUF = ratedCapacitanceUF({ kvar: 50, voltageV: 400, frequencyHz: 50, connection: 'delta' }) * (1 + options.deviationPct / 100);
+  const [created] = await ctx.db
+    .insert(readings)
+    .values({
+      workOrderId: options.workOrderId,
+      idempotencyKey: unique('reading'),
+      target: 'capacitor-unit',
+      targetId: options.unitId,
+      input: { target: 'capacitor-unit', targetId: options.unitId, method: 'per-element', elementsUF: [legUF, legUF, legUF] },
+      evaluation: { legsUF: [legUF, legUF, legUF], kvarAtRated: 50 * (1 + options.deviationPct / 100), deviationPct: options.deviationPct, band: options.band },
+      engineeringVersion: '1.0.0',
+      band: options.band,
+      deviationPct: options.deviationPct,
+      recordedById: options.recordedById,
+      recordedAt: options.recordedAt ?? new Date(),
+    })
+    .$returningId();
+  return created!.id;
+}
+
+/**
+ * Sends the outbox (as the job would, in large batches) until the row `outboxId` has gone to
+ * the mail fake. In a full run every file's mail shares one outbox, so a row may wait behind
+ * thousands of others; then latestMailTo finds it at its first look.
+ */
+export async function sendOutboxThrough(ctx: AppContext, outboxId: number, timeoutMs = 50_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const [row] = await ctx.db.select({ status: outbox.status }).from(outbox).where(eq(outbox.id, outboxId));
+    if (!row || row.status === 'sent') return;
+    if (row.status === 'failed') throw new Error(`outbox row ${outboxId} failed to send`);
+    if ((await deliverOutbox(ctx.db, ctx.mail, ctx.log, 200)) === 0) await new Promise((resolve) => setTimeout(resolve, 100));
+  }
+  throw new Error(`outbox row ${outboxId} was not sent within ${timeoutMs} ms`);
 }

@@ -14,6 +14,11 @@ import { userRoutes } from './modules/users/routes';
 import { registerRoutes } from './modules/register/routes';
 import { siteHealthRoutes } from './modules/site-health/routes';
 import { fleetRoutes } from './modules/fleet/routes';
+import { workOrderRoutes } from './modules/work-orders/routes';
+import { planRoutes } from './modules/plans/routes';
+import { flagRoutes } from './modules/flags/routes';
+import { readingRoutes } from './modules/readings/routes';
+import { photoRoutes } from './modules/photos/routes';
 
 export const jsonBodyLimitBytes = 1024 * 1024;
 
@@ -73,6 +78,11 @@ export function createApp(ctx: AppContext): express.Express {
   api.use(registerRoutes(ctx));
   api.use(siteHealthRoutes(ctx));
   api.use(fleetRoutes(ctx));
+  api.use(workOrderRoutes(ctx));
+  api.use(planRoutes(ctx));
+  api.use(flagRoutes(ctx));
+  api.use(readingRoutes(ctx));
+  api.use(photoRoutes(ctx));
   api.use(notFoundHandler);
   app.use('/api', api);
 

@@ -31,6 +31,10 @@ const configSchema = z.object({
    */
   SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
   SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(24 * 30).default(12),
+  /** Largest photo upload accepted, bytes (a 12 MP phone JPEG is 3–6 MB). */
+  PHOTO_MAX_BYTES: z.coerce.number().int().min(1024).max(200 * 1024 * 1024).default(15 * 1024 * 1024),
+  /** Largest photo accepted in pixels, against decompression bombs (a 48 MP phone sensor fits). */
+  PHOTO_MAX_PIXELS: z.coerce.number().int().min(10_000).max(500_000_000).default(50_000_000),
 });
 
 export type Config = z.infer<typeof configSchema>;

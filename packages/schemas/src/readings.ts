@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { listQuery } from './common';
 
 // Contracts for what a technician records and what the server makes of it. Every write carries
 // an idempotency key made on the phone, so a retry after a lost answer stores nothing twice.
@@ -30,6 +31,11 @@ const base = {
   notes,
   /** The technician confirms a value the server found implausible (the warning told them why). */
   confirmImplausible: z.boolean().default(false),
+  /**
+   * When the reading was taken on the phone, which may send it much later (no signal in the
+   * switch-room). The server uses its own clock when absent and refuses a time in the future.
+   */
+  recordedAt: z.iso.datetime({ offset: true, error: 'A date and time such as 2026-05-04T09:30:00Z' }).optional(),
 };
 
 export const capacitorReadingInput = z
@@ -135,6 +141,8 @@ export const raisedFlag = z.object({
   kind: z.string(),
   severity: z.enum(['advisory', 'action']),
   message: z.string(),
+  /** True when an open flag of this kind on this target already existed, so no new one was raised. */
+  alreadyOpen: z.boolean().optional(),
 });
 
 export const reading = z.object({
@@ -146,12 +154,29 @@ export const reading = z.object({
   /** For a capacitor: legsUF, kvarAtRated, deviationPct, legDeviationsPct, unbalanceRatio, band, reasons. */
   evaluation: z.record(z.string(), z.unknown()),
   band: z.enum(bands).nullable(),
+  /** Capacitor units: deviation of kvar at rated conditions from nameplate, %. */
+  deviationPct: z.number().nullable(),
   engineeringVersion: z.string(),
   flags: z.array(raisedFlag),
   recordedByName: z.string(),
   recordedAt: z.string(),
 });
 export type Reading = z.infer<typeof reading>;
+
+/** One reading in a capacitor unit's history: the rows of its table and the points of its trend chart. */
+export const unitReading = z.object({
+  id: z.number(),
+  recordedAt: z.string(),
+  workOrderId: z.number(),
+  workOrderState: z.string(),
+  method: z.enum(fieldMethods),
+  legsUF: z.array(z.number()),
+  kvarAtRated: z.number(),
+  deviationPct: z.number(),
+  band: z.enum(bands),
+});
+export type UnitReading = z.infer<typeof unitReading>;
+export const unitReadingListQuery = listQuery(['-recordedAt', 'recordedAt'] as const, '-recordedAt');
 
 export const photo = z.object({
   id: z.number(),

@@ -2,6 +2,9 @@ import cron from 'node-cron';
 import type { AppContext } from '../context';
 import { deliverOutbox } from '../mail/outbox';
 import { purgeStaleAccessRecords } from '../modules/auth/housekeeping';
+import { createDueInspectionOrders } from '../modules/plans/due-inspections';
+import { sendOverdueDigest } from '../modules/work-orders/overdue-digest';
+import { queueMonthlySummaries } from '../modules/site-health/monthly-summary';
 import { withNamedLock } from './named-lock';
 
 type Job = { name: string; schedule: string; run: (ctx: AppContext) => Promise<unknown> };
@@ -10,6 +13,11 @@ type Job = { name: string; schedule: string; run: (ctx: AppContext) => Promise<u
 export const jobs: Job[] = [
   { name: 'outbox', schedule: '*/5 * * * * *', run: (ctx) => deliverOutbox(ctx.db, ctx.mail, ctx.log) },
   { name: 'access-housekeeping', schedule: '17 * * * *', run: (ctx) => purgeStaleAccessRecords(ctx) },
+  // Looked at every hour so a restart never skips a day; each due plan still makes one order.
+  { name: 'inspection-orders', schedule: '7 * * * *', run: (ctx) => createDueInspectionOrders(ctx) },
+  { name: 'overdue-digest', schedule: '30 6 * * *', run: (ctx) => sendOverdueDigest(ctx) },
+  // Every morning, so a month whose 1st fell in an outage still gets its summary; once per month.
+  { name: 'site-summaries', schedule: '45 6 * * *', run: (ctx) => queueMonthlySummaries(ctx) },
 ];
 
 export function startJobs(ctx: AppContext, list: Job[] = jobs): { stop: () => void } {

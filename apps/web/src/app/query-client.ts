@@ -1,4 +1,5 @@
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
+import { session } from '../features/auth/api/session-queries';
 import { isApiError } from '../lib/api-client';
 import { pushNotice } from '../lib/notices';
 
@@ -25,11 +26,21 @@ function shouldRetry(failureCount: number, error: unknown): boolean {
   return failureCount < 2;
 }
 
+const isSignedOut = (error: unknown) => isApiError(error) && error.status === 401;
+
 /** A fresh client per app start and per test (tests pass `retry: false` through defaults). */
 export function createQueryClient(): QueryClient {
-  return new QueryClient({
+  // A 401 means the session ended (expired, revoked, signed out elsewhere): ask again who is
+  // signed in, and the frame shows the way back in. Navigation stays with the pages.
+  const recheckSession = () => void queryClient.invalidateQueries({ queryKey: session.queryKey });
+
+  const queryClient: QueryClient = new QueryClient({
     queryCache: new QueryCache({
       onError: (error, query) => {
+        if (isSignedOut(error)) {
+          if (query.queryKey[0] !== session.queryKey[0]) recheckSession();
+          return;
+        }
         // A first load shows its failure in place; only a failed refresh of data already on
         // screen needs a notice, because the page keeps showing the older data.
         if (query.state.data === undefined) return;
@@ -39,6 +50,7 @@ export function createQueryClient(): QueryClient {
     }),
     mutationCache: new MutationCache({
       onError: (error, _variables, _context, mutation) => {
+        if (isSignedOut(error)) recheckSession();
         if (mutation.meta?.handlesErrors) return;
         // Field errors go back into their form with setError.
         if (isApiError(error) && error.status === 400 && Object.keys(error.fields).length > 0) return;
@@ -50,4 +62,5 @@ export function createQueryClient(): QueryClient {
       mutations: { retry: false },
     },
   });
+  return queryClient;
 }

@@ -1,23 +1,37 @@
 import { type QueryClient, useQueryClient } from '@tanstack/react-query';
 import { useState, type ComponentType } from 'react';
-import { createBrowserRouter, RouterProvider, type LoaderFunction } from 'react-router-dom';
+import { createBrowserRouter, RouterProvider, type LoaderFunction, type RouteObject } from 'react-router-dom';
 import { RootErrorBoundary, SectionErrorBoundary } from '../components/errors/route-error';
 import { paths } from '../config/paths';
-import { AppShell, ShellFallback } from './routes/app-shell';
+import { AppShell, ShellFallback, shellLoader } from './routes/app-shell';
+import { SignedInPages, signedInLoader } from './routes/signed-in-pages';
+import { registerRoutes } from './routes/register/register-routes';
+import { fieldRoutes } from './routes/field/field-routes';
+import { workOrderRoutes } from './routes/work-orders/work-orders-routes';
 
 /** What a page module in routes/ exports: the page as default, optionally a loader factory. */
-type RouteModule = {
+export type RouteModule = {
   default: ComponentType;
   clientLoader?: (queryClient: QueryClient) => LoaderFunction;
 };
 
+/** Turns a loaded page module into React Router's route properties (`lazy: () => import(…).then(page)`). */
+export type PageMapper = (module: RouteModule) => Pick<RouteObject, 'Component' | 'loader'>;
+
 /** Maps a lazily loaded page module onto React Router's route properties. */
 const toRoute =
-  (queryClient: QueryClient) =>
+  (queryClient: QueryClient): PageMapper =>
   ({ default: Component, clientLoader }: RouteModule) => ({
     Component,
     ...(clientLoader ? { loader: clientLoader(queryClient) } : {}),
   });
+
+/** One page: its path, its lazily loaded module, and a boundary so a failing page keeps the frame. */
+const pageRoute = (path: string, load: () => Promise<RouteModule>, page: PageMapper): RouteObject => ({
+  path,
+  errorElement: <SectionErrorBoundary />,
+  lazy: () => load().then(page),
+});
 
 export function createAppRouter(queryClient: QueryClient) {
   const page = toRoute(queryClient);
@@ -27,19 +41,37 @@ export function createAppRouter(queryClient: QueryClient) {
       Component: AppShell,
       HydrateFallback: ShellFallback,
       errorElement: <RootErrorBoundary />,
+      loader: shellLoader(queryClient),
       children: [
-        // One route per section, each with its own boundary so a failing section keeps the
-        // rail. Register, Work orders, Fleet health and People are added beside Overview.
+        // Open to everyone: signing in and choosing a password.
+        pageRoute(paths.signIn.path, () => import('./routes/sign-in'), page),
+        pageRoute(paths.resetPassword.path, () => import('./routes/reset-password'), page),
+        pageRoute(paths.setPassword.path, () => import('./routes/set-password'), page),
         {
-          index: true,
+          // Signed in only: a signed-out visitor is sent to sign-in with ?next= and brought back.
+          Component: SignedInPages,
+          loader: signedInLoader(queryClient),
           errorElement: <SectionErrorBoundary />,
-          lazy: () => import('./routes/home').then(page),
+          children: [
+            { index: true, errorElement: <SectionErrorBoundary />, lazy: () => import('./routes/home').then(page) },
+            pageRoute(paths.planningDesk.path, () => import('./routes/planning-desk'), page),
+            pageRoute(paths.todaysOrders.path, () => import('./routes/todays-orders'), page),
+            pageRoute(paths.reviewQueue.path, () => import('./routes/review-queue'), page),
+            pageRoute(paths.siteHealth.path, () => import('./routes/site-health'), page),
+            pageRoute(paths.people.path, () => import('./routes/people'), page),
+            pageRoute(paths.invitePerson.path, () => import('./routes/invite-person'), page),
+            pageRoute(paths.person.path, () => import('./routes/person'), page),
+            pageRoute(paths.auditLog.path, () => import('./routes/audit-log'), page),
+            pageRoute(paths.serviceHealth.path, () => import('./routes/service-health'), page),
+            pageRoute(paths.account.path, () => import('./routes/account'), page),
+            // Each feature's own route array joins here, e.g. ...registerRoutes(page),
+            ...registerRoutes(page),
+            ...fieldRoutes(page),
+            ...workOrderRoutes(page),
+          ],
         },
-        {
-          path: '*',
-          errorElement: <SectionErrorBoundary />,
-          lazy: () => import('./routes/not-found').then(page),
-        },
+        // Open to everyone, inside the frame of whoever is (or is not) signed in.
+        pageRoute('*', () => import('./routes/not-found'), page),
       ],
     },
   ]);

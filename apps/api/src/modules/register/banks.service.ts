@@ -2,7 +2,7 @@ import type { Bank, bankCreate, bankListQuery, bankUpdate } from '@varden/schema
 import { and, count, eq, isNull, like, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { Database } from '../../db/client';
-import { banks, sites, steps } from '../../db/schema/index';
+import { banks, sites } from '../../db/schema/index';
 import { deleteUnreferenced, isDuplicateKey, offset, orderBy, updateVersioned } from '../../db/versioned';
 import { AppError } from '../../http/app-error';
 import { assertInScope, inScope, type SiteScope } from './scope-filter';

@@ -1,29 +1,16 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { ConditionKey } from '../../components/condition-key';
-import { PageHeader } from '../../components/page-header';
-import { healthQueries } from '../../features/health/api/health-queries';
-import { ServiceHealthPanel } from '../../features/health/components/service-health-panel';
+import { redirect, type LoaderFunctionArgs } from 'react-router-dom';
+import { homeFor } from '../../features/auth/lib/role-home';
+import { requireSession } from '../../features/auth/lib/route-guards';
 
-// Starts the health check while the page renders; never awaited, so a server that does not
-// answer shows in the panel instead of failing the route.
-export const clientLoader = (queryClient: QueryClient) => () => {
-  void queryClient.prefetchQuery(healthQueries.report());
-  return null;
-};
+/** The root address leads each person to the home of their role. */
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ request }: LoaderFunctionArgs) => {
+    const me = await requireSession(queryClient, request);
+    throw redirect(homeFor(me.user.roles));
+  };
 
 export default function HomeRoute() {
-  return (
-    <>
-      <PageHeader
-        eyebrow="Overview"
-        title="Varden"
-        documentTitle="Overview"
-        lead="Keeps power-factor-correction capacitor banks healthy: inspections planned, readings taken in the switch-room, records signed off."
-      />
-      <div className="grid gap-6 desk:grid-cols-2 desk:items-start">
-        <ServiceHealthPanel />
-        <ConditionKey />
-      </div>
-    </>
-  );
+  return null;
 }

@@ -45,7 +45,7 @@ function ErrorMessage({ explained }: { explained: Explained }) {
       <h1 className="text-xl font-semibold desk:text-2xl">{explained.title}</h1>
       <p className="mt-2 text-ink-muted">{explained.message}</p>
       <p className="mt-4">
-        <Link to={paths.home.getHref()}>Go to Overview</Link>
+        <Link to={paths.home.getHref()}>Go to your start page</Link>
       </p>
       {explained.detail && (
         <details className="mt-6 text-sm">

@@ -1,0 +1,94 @@
+import sharp, { type Metadata } from 'sharp';
+import { AppError } from '../../http/app-error';
+
+/** Longest side of the display image and of the thumbnail, px. */
+export const displayMaxPx = 1600;
+export const thumbnailMaxPx = 320;
+export const storedContentType = 'image/webp';
+
+export interface Rendition {
+  data: Buffer;
+  widthPx: number;
+  heightPx: number;
+}
+
+export interface ProcessedPhoto {
+  display: Rendition;
+  thumbnail: Rendition;
+  sourceFormat: AcceptedFormat;
+}
+
+type AcceptedFormat = 'jpeg' | 'png' | 'webp' | 'heif';
+
+const heifBrands = new Set(['heic', 'heix', 'heim', 'heis', 'hevc', 'hevx', 'mif1', 'msf1', 'avif', 'avis']);
+
+/**
+ * The photo formats a phone sends, told from the first bytes (the name and the declared type
+ * are never trusted). Anything else, SVG included, never reaches an image decoder.
+ */
+export function sniffPhotoFormat(data: Buffer): AcceptedFormat | undefined {
+  if (data.length < 12) return undefined;
+  if (data[0] === 0xff && data[1] === 0xd8 && data[2] === 0xff) return 'jpeg';
+  if (data.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]))) return 'png';
+  if (data.toString('latin1', 0, 4) === 'RIFF' && data.toString('latin1', 8, 12) === 'WEBP') return 'webp';
+  if (data.toString('latin1', 4, 8) === 'ftyp' && heifBrands.has(data.toString('latin1', 8, 12))) return 'heif';
+  return undefined;
+}
+
+const notAPhoto = () =>
+  new AppError('unsupported_media', 'This file is not a photo: send a JPEG, PNG, WebP or HEIF/AVIF image.', { file: 'Not a photo (JPEG, PNG, WebP, HEIF/AVIF)' });
+const damaged = () =>
+  new AppError('invalid', 'The photo is damaged or incomplete (the upload may have been cut off): take or send it again.', { file: 'Damaged or incomplete image' });
+const tooManyPixels = (width: number, height: number, maxPixels: number) =>
+  new AppError(
+    'too_large',
+    `The photo is ${width} × ${height} px (${((width * height) / 1e6).toFixed(0)} MP); the limit is ${(maxPixels / 1e6).toFixed(0)} MP.`,
+    { file: `More than ${(maxPixels / 1e6).toFixed(0)} megapixels` },
+  );
+
+/**
+ * Checks an upload and makes what is stored: the content must be a JPEG, PNG, WebP or HEIF
+ * (AVIF) image whose header declares no more than `maxPixels`; it is decoded once with the
+ * same pixel limit, turned upright from its EXIF orientation and re-encoded without any
+ * metadata (EXIF, GPS, XMP, ICC all dropped) as a display size and a thumbnail in WebP.
+ */
+export async function processPhoto(data: Buffer, limits: { maxPixels: number }): Promise<ProcessedPhoto> {
+  const sniffed = sniffPhotoFormat(data);
+  if (!sniffed) throw notAPhoto();
+  let metadata: Metadata;
+  try {
+    metadata = await sharp(data).metadata();
+  } catch (error) {
+    throw /unsupported image format/i.test(String(error)) ? notAPhoto() : damaged();
+  }
+  if (metadata.format !== sniffed) throw notAPhoto();
+  if (sniffed === 'heif' && (metadata.compression === 'hevc' || !sharp.format.heif.input.buffer)) {
+    throw new AppError(
+      'unsupported_media',
+      'HEIC photos (HEVC) cannot be read on this server. Set the camera to its most compatible format (JPEG) or send a JPEG.',
+      { file: 'HEIC (HEVC) is not supported here; send a JPEG' },
+    );
+  }
+  const width = metadata.width ?? 0;
+  const height = metadata.height ?? 0;
+  if (width <= 0 || height <= 0) throw damaged();
+  if (width * height > limits.maxPixels) throw tooManyPixels(width, height, limits.maxPixels);
+
+  let display: Rendition;
+  try {
+    const out = await sharp(data, { limitInputPixels: limits.maxPixels, failOn: 'warning' })
+      .rotate()
+      .resize({ width: displayMaxPx, height: displayMaxPx, fit: 'inside', withoutEnlargement: true })
+      .webp({ quality: 82 })
+      .toBuffer({ resolveWithObject: true });
+    display = { data: out.data, widthPx: out.info.width, heightPx: out.info.height };
+  } catch (error) {
+    if (/pixel limit/i.test(String(error))) throw tooManyPixels(width, height, limits.maxPixels);
+    throw damaged();
+  }
+  const thumb = await sharp(display.data)
+    .resize({ width: thumbnailMaxPx, height: thumbnailMaxPx, fit: 'inside', withoutEnlargement: true })
+    .webp({ quality: 72 })
+    .toBuffer({ resolveWithObject: true });
+  return { display, thumbnail: { data: thumb.data, widthPx: thumb.info.width, heightPx: thumb.info.height }, sourceFormat: sniffed };
+}

@@ -1,0 +1,114 @@
+import type { Executor } from '../../access/executor';
+import { AppError } from '../../http/app-error';
+import type { WorkOrderRow } from '../work-orders/order-guard';
+import { evaluateCapacitorReading } from './evaluate-capacitor';
+import { evaluateBankReading, evaluateContactorReading, evaluateFuseReading, evaluateReactorReading } from './evaluate-components';
+import { evaluateStepTuning, type StepUnit } from './evaluate-step';
+import type { InputFor, Outcome, ReactorRecord, ReadingInputValue } from './evaluation-types';
+import {
+  findBankPlace,
+  findContactorPlace,
+  findFuseSetPlace,
+  findReactorPlace,
+  findUnitPlace,
+  latestReadingInput,
+  reactorInService,
+  unitsOfStep,
+} from './readings.repository';
+
+const notOnThisBank = (what: string, id: number, order: WorkOrderRow) =>
+  new AppError('invalid', `${what} ${id} is not part of the bank of work order ${order.id}.`, { targetId: `Not a ${what.toLowerCase()} of this order's bank` });
+
+const removed = (what: string, id: number, on: string) =>
+  new AppError('invalid', `${what} ${id} was removed from service on ${on}; record readings on the component that replaced it.`, {
+    targetId: `Removed from service on ${on}`,
+  });
+
+/**
+ * Loads what a reading is judged against (the register: nameplate, step, bank, site, the step's
+ * reactor and units) and evaluates it with packages/engineering. Runs inside the transaction
+ * that stores the reading, after the bank is locked, so the step's latest evaluations are current.
+ */
+export async function evaluateReading(db: Executor, order: WorkOrderRow, input: ReadingInputValue, recordedAt: Date): Promise<Outcome> {
+  switch (input.target) {
+    case 'capacitor-unit':
+      return evaluateUnit(db, order, input, recordedAt);
+    case 'contactor': {
+      const place = await findContactorPlace(db, input.targetId);
+      if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Contactor', input.targetId, order);
+      if (place.contactor.removedOn) throw removed('Contactor', input.targetId, place.contactor.removedOn);
+      const previous = await latestReadingInput(db, 'contactor', input.targetId);
+      const previousCounter = typeof previous?.input.operationsCounter === 'number' ? previous.input.operationsCounter : null;
+      return evaluateContactorReading(input, { contactor: place.contactor, step: place.step, previousCounter });
+    }
+    case 'reactor':
+      return evaluateReactor(db, order, input);
+    case 'fuse-set': {
+      const place = await findFuseSetPlace(db, input.targetId);
+      if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Fuse set', input.targetId, order);
+      if (place.fuseSet.removedOn) throw removed('Fuse set', input.targetId, place.fuseSet.removedOn);
+      return evaluateFuseReading(input, { fuseSet: place.fuseSet, step: place.step });
+    }
+    case 'bank': {
+      if (input.targetId !== order.bankId) throw notOnThisBank('Bank', input.targetId, order);
+      const place = await findBankPlace(db, input.targetId);
+      if (!place) throw notOnThisBank('Bank', input.targetId, order);
+      return evaluateBankReading(input, place);
+    }
+  }
+}
+
+async function evaluateUnit(db: Executor, order: WorkOrderRow, input: InputFor<'capacitor-unit'>, recordedAt: Date): Promise<Outcome> {
+  const place = await findUnitPlace(db, input.targetId);
+  if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Capacitor unit', input.targetId, order);
+  if (place.unit.removedOn) throw removed('Capacitor unit', input.targetId, place.unit.removedOn);
+  const [reactor, stepUnits] = await Promise.all([place.bank.detuned ? reactorInService(db, place.step.id) : null, unitsOfStep(db, place.step.id)]);
+  const outcome = evaluateCapacitorReading(input, {
+    unit: place.unit,
+    step: place.step,
+    bank: place.bank,
+    site: place.site,
+    reactor,
+    unitsInStep: stepUnits.length,
+    orderKind: order.kind,
+  });
+  if (place.bank.detuned && outcome.unitResult) {
+    const legs = outcome.unitResult.legsUF;
+    // This reading counts for the step unless a reading taken later is already the unit's latest.
+    const units: StepUnit[] = stepUnits.map((u) =>
+      u.unit.id === place.unit.id && (!u.recordedAt || recordedAt >= u.recordedAt) ? { unit: u.unit, legsUF: legs } : u,
+    );
+    const measuredInductanceMH = reactor ? await latestMeasuredInductance(db, reactor) : undefined;
+    addStepTuning(outcome, evaluateStepTuning({ site: place.site, bank: place.bank, step: place.step, reactor, units, measuredInductanceMH }));
+  }
+  return outcome;
+}
+
+async function evaluateReactor(db: Executor, order: WorkOrderRow, input: InputFor<'reactor'>): Promise<Outcome> {
+  const place = await findReactorPlace(db, input.targetId);
+  if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Reactor', input.targetId, order);
+  if (place.reactor.removedOn) throw removed('Reactor', input.targetId, place.reactor.removedOn);
+  const outcome = evaluateReactorReading(input, { reactor: place.reactor, step: place.step });
+  if (place.bank.detuned) {
+    const measuredInductanceMH = input.inductanceMH ? mean(input.inductanceMH) : await latestMeasuredInductance(db, place.reactor);
+    const units = await unitsOfStep(db, place.step.id);
+    addStepTuning(outcome, evaluateStepTuning({ site: place.site, bank: place.bank, step: place.step, reactor: place.reactor, units, measuredInductanceMH }));
+  }
+  return outcome;
+}
+
+function addStepTuning(outcome: Outcome, tuning: ReturnType<typeof evaluateStepTuning>): void {
+  if (!tuning) return;
+  outcome.evaluation.step = tuning.evaluation;
+  if (tuning.flag) outcome.flags.push(tuning.flag);
+}
+
+/** The mean inductance the reactor's latest reading measured, if it did; otherwise the register's counts. */
+async function latestMeasuredInductance(db: Executor, reactor: ReactorRecord): Promise<number | undefined> {
+  const latest = await latestReadingInput(db, 'reactor', reactor.id);
+  const values = latest?.input.inductanceMH;
+  if (!Array.isArray(values) || values.length !== 3 || !values.every((v): v is number => typeof v === 'number' && v > 0)) return undefined;
+  return mean(values);
+}
+
+const mean = (values: readonly number[]) => values.reduce((s, v) => s + v, 0) / values.length;

@@ -1,0 +1,238 @@
+import { and, asc, count, desc, eq, inArray, isNull, ne } from 'drizzle-orm';
+import type { Executor } from '../../access/executor';
+import {
+  banks,
+  capacitorUnits,
+  contactors,
+  flags,
+  fuseSets,
+  reactors,
+  readings,
+  sites,
+  steps,
+  unitLatestEvaluations,
+  users,
+  workOrders,
+} from '../../db/schema/index';
+import { offset } from '../../db/versioned';
+import type { FlagDraft, ReadingTarget } from './evaluation-types';
+import type { StepUnit } from './evaluate-step';
+
+export type ReadingRow = typeof readings.$inferSelect;
+
+const readingColumns = {
+  reading: readings,
+  recordedByName: users.name,
+};
+
+export async function findReadingByKey(db: Executor, idempotencyKey: string) {
+  const [row] = await db
+    .select(readingColumns)
+    .from(readings)
+    .innerJoin(users, eq(users.id, readings.recordedById))
+    .where(eq(readings.idempotencyKey, idempotencyKey));
+  return row;
+}
+
+export async function findReadingById(db: Executor, id: number) {
+  const [row] = await db.select(readingColumns).from(readings).innerJoin(users, eq(users.id, readings.recordedById)).where(eq(readings.id, id));
+  return row;
+}
+
+export async function readingsOfOrder(db: Executor, workOrderId: number) {
+  return db
+    .select(readingColumns)
+    .from(readings)
+    .innerJoin(users, eq(users.id, readings.recordedById))
+    .where(eq(readings.workOrderId, workOrderId))
+    .orderBy(asc(readings.recordedAt), asc(readings.id));
+}
+
+/**
+ * Locks the order for the length of the transaction: a submission or a sign-off waits for the
+ * reading being stored, and a reading never lands on an order that moved on meanwhile.
+ */
+export async function lockOrder(db: Executor, orderId: number) {
+  const [row] = await db
+    .select({ id: workOrders.id, state: workOrders.state, locked: workOrders.locked, assigneeId: workOrders.assigneeId })
+    .from(workOrders)
+    .where(eq(workOrders.id, orderId))
+    .for('update');
+  return row;
+}
+
+/** Serialises readings on one bank, so flags are raised once and latest evaluations move forward only. */
+export async function lockBank(db: Executor, bankId: number): Promise<void> {
+  await db.select({ id: banks.id }).from(banks).where(eq(banks.id, bankId)).for('update');
+}
+
+const placeColumns = {
+  step: { id: steps.id, number: steps.number, bankId: steps.bankId },
+  bank: { id: banks.id, name: banks.name, detuned: banks.detuned, detuningFactor: banks.detuningFactor },
+  site: {
+    id: sites.id,
+    voltageV: sites.voltageV,
+    frequencyHz: sites.frequencyHz,
+    targetPf: sites.targetPf,
+    tariffBasis: sites.tariffBasis,
+    tariffLimit: sites.tariffLimit,
+  },
+};
+
+export async function findUnitPlace(db: Executor, unitId: number) {
+  const [row] = await db
+    .select({ unit: capacitorUnits, ...placeColumns })
+    .from(capacitorUnits)
+    .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
+    .innerJoin(banks, eq(banks.id, steps.bankId))
+    .innerJoin(sites, eq(sites.id, banks.siteId))
+    .where(eq(capacitorUnits.id, unitId));
+  return row;
+}
+
+export async function findContactorPlace(db: Executor, id: number) {
+  const [row] = await db
+    .select({ contactor: contactors, ...placeColumns })
+    .from(contactors)
+    .innerJoin(steps, eq(steps.id, contactors.stepId))
+    .innerJoin(banks, eq(banks.id, steps.bankId))
+    .innerJoin(sites, eq(sites.id, banks.siteId))
+    .where(eq(contactors.id, id));
+  return row;
+}
+
+export async function findReactorPlace(db: Executor, id: number) {
+  const [row] = await db
+    .select({ reactor: reactors, ...placeColumns })
+    .from(reactors)
+    .innerJoin(steps, eq(steps.id, reactors.stepId))
+    .innerJoin(banks, eq(banks.id, steps.bankId))
+    .innerJoin(sites, eq(sites.id, banks.siteId))
+    .where(eq(reactors.id, id));
+  return row;
+}
+
+export async function findFuseSetPlace(db: Executor, id: number) {
+  const [row] = await db
+    .select({ fuseSet: fuseSets, ...placeColumns })
+    .from(fuseSets)
+    .innerJoin(steps, eq(steps.id, fuseSets.stepId))
+    .innerJoin(banks, eq(banks.id, steps.bankId))
+    .innerJoin(sites, eq(sites.id, banks.siteId))
+    .where(eq(fuseSets.id, id));
+  return row;
+}
+
+export async function findBankPlace(db: Executor, bankId: number) {
+  const [row] = await db
+    .select({ bank: placeColumns.bank, site: placeColumns.site })
+    .from(banks)
+    .innerJoin(sites, eq(sites.id, banks.siteId))
+    .where(eq(banks.id, bankId));
+  return row;
+}
+
+export async function reactorInService(db: Executor, stepId: number) {
+  const [row] = await db
+    .select({ id: reactors.id, inductanceMH: reactors.inductanceMH, detuningFactor: reactors.detuningFactor })
+    .from(reactors)
+    .where(and(eq(reactors.stepId, stepId), isNull(reactors.removedOn)))
+    .orderBy(desc(reactors.id))
+    .limit(1);
+  return row ?? null;
+}
+
+/** The units in service in a step with the legs of their latest evaluation. */
+export async function unitsOfStep(db: Executor, stepId: number): Promise<Array<StepUnit & { recordedAt: Date | null }>> {
+  const rows = await db
+    .select({ unit: capacitorUnits, legsUF: unitLatestEvaluations.legsUF, recordedAt: unitLatestEvaluations.recordedAt })
+    .from(capacitorUnits)
+    .leftJoin(unitLatestEvaluations, eq(unitLatestEvaluations.unitId, capacitorUnits.id))
+    .where(and(eq(capacitorUnits.stepId, stepId), isNull(capacitorUnits.removedOn)))
+    .orderBy(asc(capacitorUnits.position));
+  return rows.map((r) => ({ unit: r.unit, legsUF: r.legsUF ?? undefined, recordedAt: r.recordedAt }));
+}
+
+/** The newest earlier reading of a target, by the time it was taken. */
+export async function latestReadingInput(db: Executor, target: ReadingTarget, targetId: number) {
+  const [row] = await db
+    .select({ input: readings.input, recordedAt: readings.recordedAt })
+    .from(readings)
+    .where(and(eq(readings.target, target), eq(readings.targetId, targetId)))
+    .orderBy(desc(readings.recordedAt), desc(readings.id))
+    .limit(1);
+  return row;
+}
+
+export async function insertReading(db: Executor, values: typeof readings.$inferInsert): Promise<number> {
+  const [created] = await db.insert(readings).values(values).$returningId();
+  return created!.id;
+}
+
+/** Moves a unit's latest evaluation to this reading unless a reading taken later is already stored. */
+export async function advanceUnitLatest(
+  db: Executor,
+  values: { unitId: number; readingId: number; band: NonNullable<ReadingRow['band']>; deviationPct: number; kvarAtRated: number; legsUF: number[]; recordedAt: Date },
+): Promise<boolean> {
+  const [current] = await db
+    .select({ recordedAt: unitLatestEvaluations.recordedAt })
+    .from(unitLatestEvaluations)
+    .where(eq(unitLatestEvaluations.unitId, values.unitId))
+    .for('update');
+  if (!current) {
+    await db.insert(unitLatestEvaluations).values(values);
+    return true;
+  }
+  if (values.recordedAt.getTime() < current.recordedAt.getTime()) return false;
+  const { unitId, ...rest } = values;
+  await db.update(unitLatestEvaluations).set(rest).where(eq(unitLatestEvaluations.unitId, unitId));
+  return true;
+}
+
+/** Flags not yet cleared (open or in hand) on these targets, as "kind target id" keys. */
+export async function unclearedFlagKeys(db: Executor, drafts: FlagDraft[]): Promise<Set<string>> {
+  if (drafts.length === 0) return new Set();
+  const targetIds = [...new Set(drafts.map((d) => d.targetId))];
+  const rows = await db
+    .select({ kind: flags.kind, target: flags.target, targetId: flags.targetId })
+    .from(flags)
+    .where(and(inArray(flags.targetId, targetIds), ne(flags.state, 'cleared')));
+  return new Set(rows.map((r) => flagKey(r)));
+}
+
+export const flagKey = (f: { kind: string; target: string; targetId: number }) => `${f.kind} ${f.target} ${f.targetId}`;
+
+export async function insertFlag(db: Executor, values: typeof flags.$inferInsert) {
+  const [created] = await db.insert(flags).values(values).$returningId();
+  const [row] = await db.select().from(flags).where(eq(flags.id, created!.id));
+  return row!;
+}
+
+/** A capacitor unit's readings, newest first or oldest first, paged. */
+export async function unitReadingPage(db: Executor, unitId: number, q: { page: number; pageSize: number; sort: 'recordedAt' | '-recordedAt' }) {
+  const where = and(eq(readings.target, 'capacitor-unit'), eq(readings.targetId, unitId));
+  const direction = q.sort === 'recordedAt' ? asc : desc;
+  const [rows, [total]] = await Promise.all([
+    db
+      .select({ reading: readings, workOrderState: workOrders.state })
+      .from(readings)
+      .innerJoin(workOrders, eq(workOrders.id, readings.workOrderId))
+      .where(where)
+      .orderBy(direction(readings.recordedAt), direction(readings.id))
+      .limit(q.pageSize)
+      .offset(offset(q.page, q.pageSize)),
+    db.select({ n: count() }).from(readings).where(where),
+  ]);
+  return { rows, total: total?.n ?? 0 };
+}
+
+/** The site a unit belongs to, for the viewer's scope. */
+export async function siteOfUnit(db: Executor, unitId: number): Promise<number | undefined> {
+  const [row] = await db
+    .select({ siteId: banks.siteId })
+    .from(capacitorUnits)
+    .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
+    .innerJoin(banks, eq(banks.id, steps.bankId))
+    .where(eq(capacitorUnits.id, unitId));
+  return row?.siteId;
+}

@@ -1,0 +1,206 @@
+import { ENGINEERING_VERSION } from '@varden/engineering';
+import { raisedFlag, type Reading, type UnitReading, type unitReadingListQuery } from '@varden/schemas';
+import { z } from 'zod';
+import type { SessionUser } from '../../access/current-user';
+import { siteScope } from '../../access/site-scope';
+import type { AppContext } from '../../context';
+import type { Database } from '../../db/client';
+import type { flags } from '../../db/schema/index';
+import { isDuplicateKey } from '../../db/versioned';
+import { AppError } from '../../http/app-error';
+import { notifyReplaceFlag } from '../flags/flag-mail';
+import { findOrderForRecording, findVisibleOrder } from '../work-orders/order-guard';
+import { evaluateReading } from './evaluate';
+import type { ReadingInputValue } from './evaluation-types';
+import {
+  advanceUnitLatest,
+  findReadingById,
+  findReadingByKey,
+  flagKey,
+  insertFlag,
+  insertReading,
+  lockBank,
+  lockOrder,
+  readingsOfOrder,
+  siteOfUnit,
+  unclearedFlagKeys,
+  unitReadingPage,
+  type ReadingRow,
+} from './readings.repository';
+
+export type FlagRow = typeof flags.$inferSelect;
+
+/** A phone's clock may run a little fast; beyond this a time in the future is refused. */
+const clockSkewMs = 5 * 60 * 1000;
+
+/**
+ * Records a reading on a work order and evaluates it on the server.
+ *
+ * - Idempotent: the phone's key is unique. A retry by the same person on the same order gets
+ *   the stored reading (created: false); the key on another order or reading is a conflict.
+ * - Only the assignee, only while the order is on site, never once sealed (order-guard), checked
+ *   again under a lock on the order inside the transaction.
+ * - The reading, the unit's latest evaluation and new flags are written in one transaction,
+ *   holding a lock on the bank so concurrent readings raise each flag once.
+ */
+export async function recordReading(
+  ctx: AppContext,
+  user: SessionUser,
+  orderId: number,
+  input: ReadingInputValue,
+): Promise<{ reading: Reading; created: boolean }> {
+  const { db } = ctx;
+  await findVisibleOrder(db, user, orderId);
+  const earlier = await findReadingByKey(db, input.idempotencyKey);
+  if (earlier && isRetryOf(earlier.reading, user, orderId, input)) return { reading: toReading(earlier), created: false };
+  const order = await findOrderForRecording(db, user, orderId);
+  if (earlier) throw keyTaken();
+  const recordedAt = recordedAtOf(input);
+
+  let stored: { readingId: number; newFlags: FlagRow[] } | 'stored-by-another-request';
+  try {
+    stored = await db.transaction(async (tx) => {
+      const current = await lockOrder(tx, orderId);
+      if (!current || current.locked || current.state !== 'on-site' || current.assigneeId !== user.id) {
+        // It moved on between the check and the lock: the guard says how.
+        await findOrderForRecording(db, user, orderId);
+        throw new AppError('conflict', `Work order ${orderId} changed while the reading was being stored. Reload it.`);
+      }
+      await lockBank(tx, order.bankId);
+      if (await findReadingByKey(tx, input.idempotencyKey)) return 'stored-by-another-request' as const;
+
+      const outcome = await evaluateReading(tx, order, input, recordedAt);
+      const open = await unclearedFlagKeys(tx, outcome.flags);
+      const drafts = outcome.flags.filter((f, i, all) => all.findIndex((g) => flagKey(g) === flagKey(f)) === i);
+      outcome.evaluation.flags = drafts.map((f) => ({ kind: f.kind, severity: f.severity, message: f.message, alreadyOpen: open.has(flagKey(f)) }));
+
+      const readingId = await insertReading(tx, {
+        workOrderId: orderId,
+        idempotencyKey: input.idempotencyKey,
+        target: input.target,
+        targetId: input.targetId,
+        input: { ...input },
+        evaluation: outcome.evaluation,
+        engineeringVersion: ENGINEERING_VERSION,
+        band: outcome.band,
+        deviationPct: outcome.deviationPct,
+        recordedById: user.id,
+        recordedAt,
+      });
+      if (outcome.unitResult) await advanceUnitLatest(tx, { unitId: input.targetId, readingId, recordedAt, ...outcome.unitResult });
+      const newFlags: FlagRow[] = [];
+      const raisedAt = new Date();
+      for (const draft of drafts) {
+        if (open.has(flagKey(draft))) continue;
+        newFlags.push(await insertFlag(tx, { ...draft, siteId: order.siteId, bankId: order.bankId, readingId, raisedAt }));
+      }
+      return { readingId, newFlags };
+    });
+  } catch (error) {
+    // Two identical requests at once on different banks' locks: the unique key let one through.
+    if (!isDuplicateKey(error)) throw error;
+    stored = 'stored-by-another-request';
+  }
+
+  if (stored === 'stored-by-another-request') {
+    const row = await findReadingByKey(db, input.idempotencyKey);
+    if (!row) throw new AppError('conflict', 'The reading could not be stored; send it again.');
+    if (!isRetryOf(row.reading, user, orderId, input)) throw keyTaken();
+    return { reading: toReading(row), created: false };
+  }
+  await announceNewFlags(ctx, stored.newFlags);
+  const row = await findReadingById(db, stored.readingId);
+  return { reading: toReading(row!), created: true };
+}
+
+/**
+ * Planners and supervisors hear of a new replace flag by mail (through the outbox). The reading
+ * is stored by then, so a failure here is logged rather than answered as an error.
+ */
+async function announceNewFlags(ctx: AppContext, raised: FlagRow[]): Promise<void> {
+  for (const flag of raised) {
+    if (flag.kind !== 'replace') continue;
+    try {
+      await notifyReplaceFlag(ctx, flag);
+    } catch (error) {
+      ctx.log.error({ err: error, flagId: flag.id }, 'could not queue the mail for a replace flag');
+    }
+  }
+}
+
+function isRetryOf(stored: ReadingRow, user: SessionUser, orderId: number, input: ReadingInputValue): boolean {
+  return stored.workOrderId === orderId && stored.recordedById === user.id && stored.target === input.target && stored.targetId === input.targetId;
+}
+
+const keyTaken = () =>
+  new AppError('conflict', 'This idempotency key belongs to another reading. The phone makes a new key for each reading.', {
+    idempotencyKey: 'Already used for another reading',
+  });
+
+function recordedAtOf(input: ReadingInputValue): Date {
+  if (!input.recordedAt) return new Date();
+  const at = new Date(input.recordedAt);
+  if (at.getTime() > Date.now() + clockSkewMs) {
+    throw new AppError('invalid', 'The reading is dated in the future.', { recordedAt: "In the future: check the phone's date and time" });
+  }
+  return at;
+}
+
+const storedFlags = z.array(raisedFlag).catch([]);
+
+export function toReading(row: { reading: ReadingRow; recordedByName: string }): Reading {
+  const r = row.reading;
+  return {
+    id: r.id,
+    workOrderId: r.workOrderId,
+    target: r.target,
+    targetId: r.targetId,
+    input: r.input,
+    evaluation: r.evaluation,
+    band: r.band,
+    deviationPct: r.deviationPct,
+    engineeringVersion: r.engineeringVersion,
+    flags: storedFlags.parse(r.evaluation.flags ?? []),
+    recordedByName: row.recordedByName,
+    recordedAt: r.recordedAt.toISOString(),
+  };
+}
+
+/** Every reading of an order, oldest first, with its evaluation and the flags it raised. */
+export async function listReadingsForOrder(db: Database, workOrderId: number): Promise<Reading[]> {
+  return (await readingsOfOrder(db, workOrderId)).map(toReading);
+}
+
+/** The readings of an order the user may see (404 for an order out of their scope). */
+export async function readingsOfVisibleOrder(db: Database, user: SessionUser, orderId: number): Promise<Reading[]> {
+  await findVisibleOrder(db, user, orderId);
+  return listReadingsForOrder(db, orderId);
+}
+
+/** A capacitor unit's reading history for its table and trend chart, paged. */
+export async function listUnitReadings(
+  db: Database,
+  user: SessionUser,
+  unitId: number,
+  q: z.output<typeof unitReadingListQuery>,
+): Promise<{ items: UnitReading[]; total: number }> {
+  const siteId = await siteOfUnit(db, unitId);
+  const scope = siteScope(user);
+  if (siteId === undefined || (scope !== 'all' && !scope.includes(siteId))) throw new AppError('not_found', `Capacitor unit ${unitId} does not exist.`);
+  const { rows, total } = await unitReadingPage(db, unitId, q);
+  const items = rows.map(({ reading, workOrderState }) => {
+    const e = reading.evaluation;
+    return {
+      id: reading.id,
+      recordedAt: reading.recordedAt.toISOString(),
+      workOrderId: reading.workOrderId,
+      workOrderState,
+      method: e.method as UnitReading['method'],
+      legsUF: Array.isArray(e.legsUF) ? (e.legsUF as number[]) : [],
+      kvarAtRated: typeof e.kvarAtRated === 'number' ? e.kvarAtRated : 0,
+      deviationPct: reading.deviationPct ?? 0,
+      band: reading.band ?? 'remeasure',
+    };
+  });
+  return { items, total };
+}

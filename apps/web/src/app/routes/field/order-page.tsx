@@ -1,0 +1,33 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { data, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { requirePermission } from '../../../features/auth/lib/route-guards';
+import { fieldQueries } from '../../../features/field/api/field-queries';
+import { OrderWalkthrough } from '../../../features/field/components/order-walkthrough';
+import { isApiError } from '../../../lib/api-client';
+
+function orderIdOf(value: string | undefined): number {
+  const id = Number(value);
+  if (!Number.isInteger(id) || id < 1) throw data({ message: 'This address does not lead to a work order.' }, { status: 404 });
+  return id;
+}
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ request, params }: LoaderFunctionArgs) => {
+    await requirePermission(queryClient, request, 'work-orders:perform');
+    const id = orderIdOf(params.id);
+    try {
+      await queryClient.ensureQueryData(fieldQueries.order(id));
+    } catch (error) {
+      if (isApiError(error) && error.status === 404) throw data({ message: error.message }, { status: 404 });
+      throw error;
+    }
+    return null;
+  };
+
+/** An order on the technician's phone: the safety card, the walk through the bank, submit. */
+export default function FieldOrderPage() {
+  const { id } = useParams();
+  const orderId = orderIdOf(id);
+  return <OrderWalkthrough key={orderId} orderId={orderId} />;
+}

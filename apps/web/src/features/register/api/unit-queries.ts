@@ -1,0 +1,97 @@
+import { mutationOptions, queryOptions, type QueryClient } from '@tanstack/react-query';
+import { listResponse, unit, type Unit, type UnitCreate, type unitReplace, type unitUpdate } from '@varden/schemas';
+import { z } from 'zod';
+import { apiRequest } from '../../../lib/api-client';
+import { fetchAllPages, searchOf, type Page } from './list-params';
+import { registerKey } from './register-keys';
+
+export type UnitUpdate = z.input<typeof unitUpdate>;
+export type UnitReplace = z.input<typeof unitReplace>;
+
+/** Which units: those of a step or of a bank, with or without the ones removed from service. */
+export type UnitScope = ({ stepId: number; bankId?: never } | { bankId: number; stepId?: never }) & { includeRemoved: boolean };
+
+const unitList = listResponse(unit);
+// The replacement's answer has no shared schema yet (reported to the lead); same shape as the service returns.
+const unitReplacement = z.object({ removed: unit, installed: unit });
+export type UnitReplacement = z.infer<typeof unitReplacement>;
+
+/** Every unit in the scope, by position: a step holds at most 32 in service, a bank many more. */
+export function fetchUnits(scope: UnitScope, signal?: AbortSignal): Promise<Page<Unit>> {
+  return fetchAllPages((page, pageSize) =>
+    apiRequest(
+      `/api/capacitor-units${searchOf({
+        stepId: scope.stepId,
+        bankId: scope.bankId,
+        includeRemoved: scope.includeRemoved ? 'true' : undefined,
+        sort: 'position',
+        page,
+        pageSize,
+      })}`,
+      { parse: unitList.parse, ...(signal ? { signal } : {}) },
+    ),
+  );
+}
+
+export function fetchUnit(id: number, signal?: AbortSignal): Promise<Unit> {
+  return apiRequest(`/api/capacitor-units/${id}`, { parse: unit.parse, ...(signal ? { signal } : {}) });
+}
+
+export function createUnit(body: UnitCreate): Promise<Unit> {
+  return apiRequest('/api/capacitor-units', { method: 'POST', body, parse: unit.parse });
+}
+
+export function updateUnit({ id, body }: { id: number; body: UnitUpdate }): Promise<Unit> {
+  return apiRequest(`/api/capacitor-units/${id}`, { method: 'PATCH', body, parse: unit.parse });
+}
+
+export function replaceUnit({ id, body }: { id: number; body: UnitReplace }): Promise<UnitReplacement> {
+  return apiRequest(`/api/capacitor-units/${id}/replacement`, { method: 'POST', body, parse: unitReplacement.parse });
+}
+
+export const unitQueries = {
+  all: [...registerKey, 'capacitor-units'] as const,
+  lists: () => [...unitQueries.all, 'list'] as const,
+  list: (scope: UnitScope) =>
+    queryOptions({
+      queryKey: [...unitQueries.lists(), scope] as const,
+      queryFn: ({ signal }) => fetchUnits(scope, signal),
+      meta: { subject: 'capacitor units' },
+    }),
+  details: () => [...unitQueries.all, 'detail'] as const,
+  detail: (id: number) =>
+    queryOptions({
+      queryKey: [...unitQueries.details(), id] as const,
+      queryFn: ({ signal }) => fetchUnit(id, signal),
+      meta: { subject: 'capacitor unit' },
+    }),
+};
+
+export const unitMutations = {
+  create: (queryClient: QueryClient) =>
+    mutationOptions({
+      mutationFn: createUnit,
+      onSuccess: () => queryClient.invalidateQueries({ queryKey: unitQueries.lists() }),
+      meta: { handlesErrors: true },
+    }),
+  update: (queryClient: QueryClient) =>
+    mutationOptions({
+      mutationFn: updateUnit,
+      onSuccess: (updated) => {
+        queryClient.setQueryData(unitQueries.detail(updated.id).queryKey, updated);
+        return queryClient.invalidateQueries({ queryKey: unitQueries.lists() });
+      },
+      meta: { handlesErrors: true },
+    }),
+  /** The old unit leaves service and the new one takes its position: both records and every list change. */
+  replace: (queryClient: QueryClient) =>
+    mutationOptions({
+      mutationFn: replaceUnit,
+      onSuccess: ({ removed, installed }) => {
+        queryClient.setQueryData(unitQueries.detail(removed.id).queryKey, removed);
+        queryClient.setQueryData(unitQueries.detail(installed.id).queryKey, installed);
+        return queryClient.invalidateQueries({ queryKey: unitQueries.lists() });
+      },
+      meta: { handlesErrors: true },
+    }),
+};
