@@ -9,8 +9,9 @@ import { toUser } from '../../apps/api/src/modules/users/to-user';
 import { eq } from 'drizzle-orm';
 import { banks, capacitorUnits, contactors, fuseSets, outbox, reactors, readings, sites, steps, workOrders } from '../../apps/api/src/db/schema/index';
 import { deliverOutbox } from '../../apps/api/src/mail/outbox';
-import type { TestApp } from './test-app';
-import { unique } from './test-app';
+import { applyMigrations } from '../../apps/api/src/db/migrate';
+import mysql from 'mysql2/promise';
+import { startTestApp, unique, type TestApp } from './test-app';
 
 /** A passphrase the policy accepts; its Argon2id hash is computed once per test file. */
 export const defaultPassword = 'copper busbar under the mezzanine';
@@ -313,7 +314,7 @@ export async function insertUnitReading(
  * the mail fake. In a full run every file's mail shares one outbox, so a row may wait behind
  * thousands of others; then latestMailTo finds it at its first look.
  */
-export async function sendOutboxThrough(ctx: AppContext, outboxId: number, timeoutMs = 50_000): Promise<void> {
+export async function sendOutboxThrough(ctx: AppContext, outboxId: number, timeoutMs = 100_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const [row] = await ctx.db.select({ status: outbox.status }).from(outbox).where(eq(outbox.id, outboxId));
@@ -322,4 +323,27 @@ export async function sendOutboxThrough(ctx: AppContext, outboxId: number, timeo
     if ((await deliverOutbox(ctx.db, ctx.mail, ctx.log, 200)) === 0) await new Promise((resolve) => setTimeout(resolve, 100));
   }
   throw new Error(`outbox row ${outboxId} was not sent within ${timeoutMs} ms`);
+}
+
+/**
+ * The real API on a database of its own (created, migrated, and dropped by `close`), for tests
+ * that need what the shared database cannot give: an empty database to seed the demo into, or
+ * an outbox holding only their own mail so that delivering it takes no time behind other files'.
+ */
+export async function startIsolatedTestApp(name: string): Promise<TestApp> {
+  const url = new URL(process.env.DATABASE_URL!);
+  const database = `varden_${name}_${process.pid}_${Math.random().toString(36).slice(2, 8)}`;
+  const root = await mysql.createConnection({ host: url.hostname, port: Number(url.port), user: url.username, password: decodeURIComponent(url.password) });
+  await root.query(`CREATE DATABASE \`${database}\``);
+  url.pathname = `/${database}`;
+  const app = await startTestApp({ DATABASE_URL: url.toString() });
+  await applyMigrations(app.ctx.db);
+  return {
+    ...app,
+    close: async () => {
+      await app.close();
+      await root.query(`DROP DATABASE IF EXISTS \`${database}\``);
+      await root.end();
+    },
+  };
 }

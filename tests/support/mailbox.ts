@@ -11,11 +11,12 @@ interface FakeMail {
  * Sends what waits in the outbox (as the job would) and returns the newest mail the mail fake
  * received for `to`. maildev 3 lists messages at GET /api/email on its web port.
  */
-export async function latestMailTo(app: TestApp, to: string, subject?: string, timeoutMs = 5000): Promise<FakeMail | undefined> {
+export async function latestMailTo(app: TestApp, to: string, subject?: string, timeoutMs = 25_000): Promise<FakeMail | undefined> {
   const deadline = Date.now() + timeoutMs;
   const address = to.toLowerCase();
   while (Date.now() < deadline) {
-    await deliverOutbox(app.ctx.db, app.ctx.mail, app.ctx.log);
+    // Other files' mail shares the outbox: send a large batch so ours is not stuck behind it.
+    await deliverOutbox(app.ctx.db, app.ctx.mail, app.ctx.log, 500);
     const res = await fetch(`${process.env.MAIL_WEB_URL}/api/email`);
     const mails = (await res.json()) as FakeMail[];
     // maildev lists in arrival order; its times have only second resolution.
