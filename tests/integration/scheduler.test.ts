@@ -99,10 +99,13 @@ describe('inspection orders from plans', () => {
 describe('the overdue digest', () => {
   // An outbox of its own: the digest lists every overdue order, and its mail is delivered at once.
   let own: TestApp;
+  let twin: TestApp;
   beforeAll(async () => {
     own = await startIsolatedTestApp('digest');
+    twin = await startTestApp({ DATABASE_URL: own.ctx.config.DATABASE_URL });
   }, 60_000);
   afterAll(async () => {
+    await twin?.close();
     await own?.close();
   });
 
@@ -118,8 +121,7 @@ describe('the overdue digest', () => {
     const sealedLate = await createWorkOrder(own.ctx, { bank: on, state: 'sealed', dueOn: '2026-01-02' });
     const notYet = await createWorkOrder(own.ctx, { bank: on, state: 'queued', dueOn: '2099-01-02' });
     const now = new Date();
-    const second = { ...own.ctx, pool: own.ctx.pool };
-    const queued = await Promise.all([sendOverdueDigest(own.ctx, now), sendOverdueDigest(second, now), sendOverdueDigest(own.ctx, now)]);
+    const queued = await Promise.all([sendOverdueDigest(own.ctx, now), sendOverdueDigest(twin.ctx, now), sendOverdueDigest(twin.ctx, now)]);
     expect(queued.reduce((a, b) => a + b, 0)).toBe(2);
     const rows = await own.ctx.db.select().from(outbox).where(eq(outbox.kind, 'work-order.overdue-digest'));
     expect(rows.map((r) => r.toAddress).sort()).toEqual([planner.email, otherPlanner.email].sort());
