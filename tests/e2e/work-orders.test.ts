@@ -4,9 +4,9 @@ import sharp from 'sharp';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import { adoptSession, expectAccessible, launchBrowser, newContext, visit } from '../support/browser';
-import { createBankWithUnits, createUser, signIn, type CreatedBank, type CreatedUser } from '../support/factories';
+import { createBankWithUnits, createUser, signIn, startIsolatedTestApp, type CreatedBank, type CreatedUser } from '../support/factories';
 import { latestMailTo } from '../support/mailbox';
-import { startTestApp, unique, type TestApp } from '../support/test-app';
+import { unique, type TestApp } from '../support/test-app';
 
 let app: TestApp;
 let browser: Browser;
@@ -21,7 +21,8 @@ let siteName: string;
 let bankName: string;
 
 beforeAll(async () => {
-  app = await startTestApp();
+  // An outbox of its own: the journeys check mails, which must not wait behind other files'.
+  app = await startIsolatedTestApp('work_orders_e2e');
   browser = await launchBrowser();
   planner = await createUser(app.ctx, { roles: ['planner'], name: unique('Planner Ilse') });
   technician = await createUser(app.ctx, { roles: ['technician'], name: unique('Technician Bram') });
