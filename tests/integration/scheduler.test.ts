@@ -103,6 +103,8 @@ describe('the overdue digest', () => {
   beforeAll(async () => {
     own = await startIsolatedTestApp('digest');
     twin = await startTestApp({ DATABASE_URL: own.ctx.config.DATABASE_URL });
+    // Two instances behind one address, as in production: links name the address users open.
+    twin.ctx.config.APP_ORIGIN = own.url;
   }, 60_000);
   afterAll(async () => {
     await twin?.close();

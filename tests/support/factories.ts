@@ -310,17 +310,17 @@ export async function insertUnitReading(
 }
 
 /**
- * Sends the outbox (as the job would, in large batches) until the row `outboxId` has gone to
- * the mail fake. In a full run every file's mail shares one outbox, so a row may wait behind
- * thousands of others; then latestMailTo finds it at its first look.
+ * Sends the outbox rows to the address of row `outboxId` (as the job would) until that row has
+ * gone to the mail fake; then latestMailTo finds it at its first look.
  */
 export async function sendOutboxThrough(ctx: AppContext, outboxId: number, timeoutMs = 100_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    const [row] = await ctx.db.select({ status: outbox.status }).from(outbox).where(eq(outbox.id, outboxId));
+    const [row] = await ctx.db.select({ status: outbox.status, toAddress: outbox.toAddress }).from(outbox).where(eq(outbox.id, outboxId));
     if (!row || row.status === 'sent') return;
     if (row.status === 'failed') throw new Error(`outbox row ${outboxId} failed to send`);
-    if ((await deliverOutbox(ctx.db, ctx.mail, ctx.log, 200)) === 0) await new Promise((resolve) => setTimeout(resolve, 100));
+    // Only this row's address: other files' mail in the shared outbox never holds it up.
+    if ((await deliverOutbox(ctx.db, ctx.mail, ctx.log, { batch: 50, toAddress: row.toAddress })) === 0) await new Promise((resolve) => setTimeout(resolve, 100));
   }
   throw new Error(`outbox row ${outboxId} was not sent within ${timeoutMs} ms`);
 }

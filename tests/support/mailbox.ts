@@ -15,9 +15,9 @@ export async function latestMailTo(app: TestApp, to: string, subject?: string, t
   const deadline = Date.now() + timeoutMs;
   const address = to.toLowerCase();
   while (Date.now() < deadline) {
-    // Other files' mail shares the outbox: send a large batch so ours is not stuck behind it.
-    await deliverOutbox(app.ctx.db, app.ctx.mail, app.ctx.log, 500);
-    const res = await fetch(`${process.env.MAIL_WEB_URL}/api/email`);
+    // Other files' mail shares the outbox and the mail fake: send and fetch only this address's.
+    await deliverOutbox(app.ctx.db, app.ctx.mail, app.ctx.log, { batch: 50, toAddress: address });
+    const res = await fetch(`${process.env.MAIL_WEB_URL}/api/email?${new URLSearchParams({ 'to.address': address })}`);
     const mails = (await res.json()) as FakeMail[];
     // maildev lists in arrival order; its times have only second resolution.
     const newest = mails

@@ -32,13 +32,22 @@ const maxAttempts = 12;
  * several API instances can run this at once without sending a mail twice. A failed send is
  * retried with a growing delay; nothing is dropped while the mail server is down.
  */
-export async function deliverOutbox(db: Database, transport: MailTransport, log: Logger, batch = 20): Promise<number> {
+export interface DeliverOptions {
+  /** At most this many mails in one call. */
+  batch?: number;
+  /** Only the mail to this address (an operator's resend, or a test waiting for its own mail). */
+  toAddress?: string;
+}
+
+export async function deliverOutbox(db: Database, transport: MailTransport, log: Logger, options: DeliverOptions = {}): Promise<number> {
+  const { batch = 20, toAddress } = options;
+  const onlyTo = toAddress === undefined ? sql`` : sql`AND to_address = ${toAddress}`;
   let sent = 0;
   for (let i = 0; i < batch; i++) {
     const done = await db.transaction(async (tx) => {
       const [rows] = (await tx.execute(
         sql`SELECT id, to_address, subject, text_body, html_body, attempts FROM outbox
-            WHERE status = 'waiting' AND send_after <= NOW(3)
+            WHERE status = 'waiting' AND send_after <= NOW(3) ${onlyTo}
             ORDER BY id LIMIT 1 FOR UPDATE SKIP LOCKED`,
       )) as unknown as [OutboxRow[]];
       const row = rows[0];
