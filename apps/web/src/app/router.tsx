@@ -6,6 +6,7 @@ import { paths } from '../config/paths';
 import { AppShell, ShellFallback, shellLoader } from './routes/app-shell';
 import { SignedInPages, signedInLoader } from './routes/signed-in-pages';
 import { registerRoutes } from './routes/register/register-routes';
+import { fleetRoutes } from './routes/fleet/fleet-routes';
 import { fieldRoutes } from './routes/field/field-routes';
 import { workOrderRoutes } from './routes/work-orders/work-orders-routes';
 
@@ -66,6 +67,7 @@ export function createAppRouter(queryClient: QueryClient) {
             pageRoute(paths.account.path, () => import('./routes/account'), page),
             // Each feature's own route array joins here, e.g. ...registerRoutes(page),
             ...registerRoutes(page),
+            ...fleetRoutes(page),
             ...fieldRoutes(page),
             ...workOrderRoutes(page),
           ],

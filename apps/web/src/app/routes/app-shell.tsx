@@ -25,6 +25,7 @@ export const sections: readonly Section[] = [
   { label: 'Inspection plans', href: paths.plans.list.getHref(), permission: 'plans:manage' },
   { label: 'Flag queue', href: paths.flagQueue.getHref(), permission: 'work-orders:schedule' },
   { label: 'Site health', href: paths.siteHealth.getHref(), permission: 'reports:read' },
+  { label: 'Fleet health', href: paths.fleetHealth.getHref(), permission: 'reports:read' },
   { label: 'Register', href: paths.register.sites.getHref(), permission: 'register:read' },
   { label: 'People', href: paths.people.getHref(), permission: 'users:manage' },
   { label: 'Audit log', href: paths.auditLog.getHref(), permission: 'audit-log:read' },
