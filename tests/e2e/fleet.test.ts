@@ -1,7 +1,7 @@
 import { ratedCapacitanceUF } from '@varden/engineering';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, test } from 'vitest';
-import { banks, capacitorUnits, readings, steps, unitLatestEvaluations, workOrders } from '../../apps/api/src/db/schema/index';
+import { banks, capacitorUnits, flags, readings, steps, unitLatestEvaluations, workOrders } from '../../apps/api/src/db/schema/index';
 import { adoptSession, deskViewport, expectAccessible, launchBrowser, newContext, visit } from '../support/browser';
 import { createSite, createUser, signIn } from '../support/factories';
 import { startTestApp, unique, type TestApp } from '../support/test-app';
@@ -100,12 +100,14 @@ async function siteThatLostCorrection(name: string) {
       recordedAt,
     });
   }
-  return { siteId, orderId: order!.id };
+  return { siteId, bankId: bank!.id, orderId: order!.id };
 }
 
 test('a supervisor opens the fleet dashboard, drills into the site that lost correction and sees the lost kvar, the reached PF and the power triangle', async () => {
   const siteName = unique('Harbour Cold Store');
-  const { siteId, orderId } = await siteThatLostCorrection(siteName);
+  const { siteId, bankId, orderId } = await siteThatLostCorrection(siteName);
+  // An advisory flag (no risk points) for the site's own list of open flags.
+  await app.ctx.db.insert(flags).values({ kind: 'unbalance', severity: 'advisory', siteId, bankId, target: 'bank', targetId: bankId, message: 'Legs differ by 9 % on step 2', raisedAt: new Date() });
   const health = await (await app.request(`/api/sites/${siteId}/health`, { cookie: supervisorCookie })).json();
   const fleet = await (await app.request('/api/fleet', { cookie: supervisorCookie })).json();
 
@@ -151,6 +153,17 @@ test('a supervisor opens the fleet dashboard, drills into the site that lost cor
   await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe(siteName);
   await page.waitForLoadState('networkidle');
   await expectAccessible(page);
+  // The rail marks the section the page belongs to: fleet health, not the register it lives under.
+  const rail = page.getByRole('navigation', { name: 'Sections' });
+  expect(await rail.getByRole('link', { name: 'Fleet health' }).getAttribute('aria-current')).toBe('page');
+  expect(await rail.getByRole('link', { name: 'Register' }).getAttribute('aria-current')).toBeNull();
+  // The page's own open flags and when its newest reading was taken.
+  const openFlags = page.getByRole('region', { name: 'Open flags of this site' });
+  expect(plain(await openFlags.innerText())).toContain('Legs differ by 9 % on step 2');
+  expect(health.openFlags).toHaveLength(1);
+  expect(health.overdueOrders.map((o: { id: number }) => o.id)).toEqual([orderId]);
+  expect(health.newestReadingAt).not.toBeNull();
+  expect(plain(await page.getByRole('heading', { level: 1 }).locator('xpath=..').innerText())).toContain('readings up to');
 
   // The figures on the page are the API's own, and the hand computation's.
   const oneDecimal = (v: number) => v.toLocaleString('en-US', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
@@ -219,6 +232,7 @@ test('a site with no readings yet reads "no reading yet", effective equal to ins
   expect(await textOf(page, 'figure-effective')).toContain('50.0 kvar of 50.0 kvar installed (no reading yet');
   expect(await textOf(page, 'figure-lost')).toContain('0.0 kvar');
   expect(plain(await page.getByRole('list', { name: 'What to do next' }).innerText())).toContain('No reading yet');
+  expect(plain(await page.getByRole('region', { name: 'Open flags of this site' }).innerText())).toContain('No open flag');
   // On a phone the triangle carries letters and its key the values.
   expect(plain(await page.getByTestId('triangle-key').innerText())).toContain('P 200 kW');
   const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);

@@ -36,7 +36,7 @@ async function siteWithUnits(units: number, dueOn = '2026-06-01') {
     .insert(workOrders)
     .values({ kind: 'inspection', siteId, bankId: bank!.id, title: 'Half-yearly inspection', instructions: '', checklist: ['capacitance'], dueOn, state: 'on-site', assigneeId: technicianId })
     .$returningId();
-  return { siteId, bankId: bank!.id, unitIds, orderId: order!.id };
+  return { siteId, bankId: bank!.id, stepId: step!.id, unitIds, orderId: order!.id };
 }
 
 async function addReading(orderId: number, unitId: number, recordedAt: string, deviationPct: number, band: 'healthy' | 'watch' | 'replace') {
@@ -93,6 +93,7 @@ describe('GET /api/fleet', () => {
 
     const projection = fleet.projectedReplacements.find((p: { unitId: number }) => p.unitId === risky.unitIds[0]);
     const expected = projectDrift({ points: history.map(([date, deviationPct]) => ({ date, deviationPct })), replaceBelowPct: -10 });
+    expect(projection).toMatchObject({ unitId: risky.unitIds[0], siteId: risky.siteId, bankId: risky.bankId, stepId: risky.stepId, stepNumber: 1, position: 1 });
     expect(projection.ratePctPerYear).toBeCloseTo(expected.ratePctPerYear, 9);
     expect(projection.replaceBy).toBe(expected.replaceBy!.slice(0, 10));
     expect(fleet.overdueOrders.map((o: { id: number }) => o.id)).toContain(risky.orderId);

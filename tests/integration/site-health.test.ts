@@ -1,15 +1,18 @@
 import { bankResonance, correctionKvar, detunedStepKvar, reactorInductanceMH, ratedCapacitanceUF } from '@varden/engineering';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { createSite, createUser, signIn } from '../support/factories';
+import { eq } from 'drizzle-orm';
+import { createSite, createUser, createWorkOrder, insertUnitReading, signIn } from '../support/factories';
 import { startTestApp, type TestApp } from '../support/test-app';
-import { banks, capacitorUnits, reactors, steps } from '../../apps/api/src/db/schema/index';
+import { banks, capacitorUnits, flags, reactors, steps, unitLatestEvaluations } from '../../apps/api/src/db/schema/index';
 
 let app: TestApp;
 let supervisor: string;
+let supervisorId: number;
 
 beforeAll(async () => {
   app = await startTestApp();
   const s = await createUser(app.ctx, { roles: ['supervisor'] });
+  supervisorId = s.user.id;
   supervisor = await signIn(app, s.email, s.password);
 });
 afterAll(async () => {
@@ -85,7 +88,9 @@ describe('GET /api/sites/:id/health', () => {
     const [bank] = health.banks;
     const expected = bankResonance({ transformerKva: 1000, impedancePct: 6, stepsKvar: [25, 25, 25, 25] });
     expect(bank.resonance).toHaveLength(4);
-    bank.resonance.forEach((r: { kvar: number; order: number; warning: boolean }, i: number) => {
+    bank.resonance.forEach((r: { stepNumbers: number[]; kvar: number; order: number; warning: boolean }, i: number) => {
+      // Steps 1, 1+2, 1+2+3, 1–4 switched in, named by their step numbers.
+      expect(r.stepNumbers).toEqual([1, 2, 3, 4].slice(0, i + 1));
       expect(r.kvar).toBeCloseTo(25 * (i + 1), 9);
       expect(r.order).toBeCloseTo(expected[i]!.order, 9);
       expect(r.warning).toBe(expected[i]!.warning);
@@ -113,6 +118,76 @@ describe('GET /api/sites/:id/health', () => {
     expect(pdf.status).toBe(200);
     expect(pdf.headers.get('content-type')).toBe('application/pdf');
     expect(Buffer.from(await pdf.arrayBuffer()).subarray(0, 5).toString()).toBe('%PDF-');
+  });
+
+  test('resonance cases name step numbers, skipping a step with no unit in service', async () => {
+    const siteId = await createSite(app.ctx, { transformerKva: 1000, transformerImpedancePct: 6 });
+    const bankId = await addBank(siteId, { detuningFactor: null, steps: 3, unitKvar: 25, unitVoltageV: 400 });
+    const [first] = await app.ctx.db.select().from(steps).where(eq(steps.bankId, bankId)).orderBy(steps.number).limit(1);
+    await app.ctx.db.update(capacitorUnits).set({ removedOn: '2026-01-05' }).where(eq(capacitorUnits.stepId, first!.id));
+    const health = await (await app.request(`/api/sites/${siteId}/health`, { cookie: supervisor })).json();
+    const expected = bankResonance({ transformerKva: 1000, impedancePct: 6, stepsKvar: [25, 25] });
+    expect(health.banks[0].resonance.map((r: { stepNumbers: number[] }) => r.stepNumbers)).toEqual([[2], [2, 3]]);
+    expect(health.banks[0].resonance[1].order).toBeCloseTo(expected[1]!.order, 9);
+    expect(health.banks[0].resonance[0]).not.toHaveProperty('stepsOn');
+  });
+
+  test('carries the site’s open flags, its overdue orders and the date of the newest reading', async () => {
+    const { db } = app.ctx;
+    const siteId = await createSite(app.ctx);
+    const bankId = await addBank(siteId, { detuningFactor: null, steps: 2, unitKvar: 25, unitVoltageV: 400 });
+    const units = await db
+      .select({ id: capacitorUnits.id })
+      .from(capacitorUnits)
+      .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
+      .where(eq(steps.bankId, bankId))
+      .orderBy(steps.number);
+    const bank = { siteId, bankId };
+    const before = await (await app.request(`/api/sites/${siteId}/health`, { cookie: supervisor })).json();
+    expect(before).toMatchObject({ newestReadingAt: null, openFlags: [], overdueOrders: [] });
+
+    const overdue = await createWorkOrder(app.ctx, { bank, state: 'dispatched', dueOn: '2026-01-10', title: 'Half-yearly inspection' });
+    await createWorkOrder(app.ctx, { bank, state: 'sealed', dueOn: '2026-01-05' });
+    await createWorkOrder(app.ctx, { bank, state: 'withdrawn', dueOn: '2026-01-05' });
+    await createWorkOrder(app.ctx, { bank, state: 'queued', dueOn: '2099-01-01' });
+    const older = new Date('2026-05-02T09:15:00.000Z');
+    const newer = new Date('2026-11-20T10:30:00.000Z');
+    for (const [unit, at] of [
+      [units[0]!, older],
+      [units[1]!, newer],
+    ] as const) {
+      const readingId = await insertUnitReading(app.ctx, { workOrderId: overdue, unitId: unit.id, recordedById: supervisorId, deviationPct: -2, band: 'healthy', recordedAt: at });
+      const legUF = ratedCapacitanceUF({ kvar: 25, voltageV: 400, frequencyHz: 50, connection: 'delta' }) * 0.98;
+      await db.insert(unitLatestEvaluations).values({ unitId: unit.id, readingId, band: 'healthy', deviationPct: -2, kvarAtRated: 24.5, legsUF: [legUF, legUF, legUF], recordedAt: at });
+    }
+    const flag = (values: Partial<typeof flags.$inferInsert>) =>
+      db
+        .insert(flags)
+        .values({ kind: 'replace', severity: 'action', siteId, bankId, target: 'capacitor-unit', targetId: units[0]!.id, message: 'Leg 1-2 reads near zero', raisedAt: new Date('2026-11-01T08:00:00Z'), ...values })
+        .$returningId()
+        .then(([row]) => row!.id);
+    const open = await flag({});
+    const inHand = await flag({ kind: 'blown-fuse', severity: 'action', target: 'bank', targetId: bankId, message: 'Fuse open', state: 'in-hand', raisedAt: new Date('2026-11-15T08:00:00Z') });
+    await flag({ kind: 'watch', severity: 'advisory', state: 'cleared', clearedAt: new Date() });
+
+    const health = await (await app.request(`/api/sites/${siteId}/health`, { cookie: supervisor })).json();
+    expect(health.newestReadingAt).toBe(newer.toISOString());
+    expect(health.overdueOrders).toEqual([{ id: overdue, title: 'Half-yearly inspection', dueOn: '2026-01-10', state: 'dispatched' }]);
+    expect(health.openFlags.map((f: { id: number }) => f.id)).toEqual([inHand, open]);
+    expect(health.openFlags[1]).toEqual({
+      id: open,
+      kind: 'replace',
+      severity: 'action',
+      bankId,
+      bankName: expect.stringMatching(/^Bank /),
+      target: 'capacitor-unit',
+      targetId: units[0]!.id,
+      message: 'Leg 1-2 reads near zero',
+      state: 'open',
+      correctiveOrderId: null,
+      raisedAt: '2026-11-01T08:00:00.000Z',
+    });
+    expect(health.openFlags[0]).toMatchObject({ kind: 'blown-fuse', state: 'in-hand', target: 'bank' });
   });
 
   test('a site with no load known says so instead of guessing', async () => {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { workOrderStates } from './work-orders';
 
 // Contracts for what the readings mean for a site: lost correction, reached PF, resonance,
 // tuning of detuned steps and the estimated cost.
@@ -38,12 +39,28 @@ export const stepHealth = z.object({
 });
 
 export const resonanceCase = z.object({
-  stepsOn: z.array(z.number()),
+  /** The numbers of the steps switched in (step 1, 1+2, …, counting only steps that still deliver kvar). */
+  stepNumbers: z.array(z.number()),
   kvar: z.number(),
   order: z.number(),
   nearestHarmonic: z.number(),
   distancePct: z.number(),
   warning: z.boolean(),
+});
+
+/** A flag of the site not yet cleared, as the site health page lists it. */
+export const siteFlag = z.object({
+  id: z.number(),
+  kind: z.string(),
+  severity: z.enum(['advisory', 'action']),
+  bankId: z.number(),
+  bankName: z.string(),
+  target: z.string(),
+  targetId: z.number(),
+  message: z.string(),
+  state: z.enum(['open', 'in-hand']),
+  correctiveOrderId: z.number().nullable(),
+  raisedAt: z.string(),
 });
 
 export const bankHealth = z.object({
@@ -99,6 +116,12 @@ export const siteHealth = z.object({
     })
     .nullable(),
   banks: z.array(bankHealth),
+  /** When the newest reading these figures rest on was taken (a unit's latest evaluation or the controller reading), or null before any. */
+  newestReadingAt: z.string().nullable(),
+  /** The site's flags not yet cleared, newest first. */
+  openFlags: z.array(siteFlag),
+  /** The site's orders past their due date and neither sealed nor withdrawn, oldest due first. */
+  overdueOrders: z.array(z.object({ id: z.number(), title: z.string(), dueOn: z.string(), state: z.enum(workOrderStates) })),
   engineeringVersion: z.string(),
 });
 export type SiteHealth = z.infer<typeof siteHealth>;
@@ -132,6 +155,7 @@ export const fleetOverview = z.object({
       siteName: z.string(),
       bankId: z.number(),
       bankName: z.string(),
+      stepId: z.number(),
       stepNumber: z.number(),
       position: z.number(),
       serial: z.string(),
@@ -140,6 +164,6 @@ export const fleetOverview = z.object({
       latestDeviationPct: z.number(),
     }),
   ),
-  overdueOrders: z.array(z.object({ id: z.number(), title: z.string(), siteId: z.number(), siteName: z.string(), dueOn: z.string(), state: z.string() })),
+  overdueOrders: z.array(z.object({ id: z.number(), title: z.string(), siteId: z.number(), siteName: z.string(), dueOn: z.string(), state: z.enum(workOrderStates) })),
 });
 export type FleetOverview = z.infer<typeof fleetOverview>;

@@ -1,6 +1,6 @@
-import { and, desc, eq, inArray, isNull } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, lt, ne, notInArray } from 'drizzle-orm';
 import type { Database } from '../../db/client';
-import { banks, capacitorUnits, reactors, readings, sites, steps, unitLatestEvaluations } from '../../db/schema/index';
+import { banks, capacitorUnits, flags, reactors, readings, sites, steps, unitLatestEvaluations, workOrders } from '../../db/schema/index';
 
 /**
  * Everything a site's health needs, in four queries: the site, its banks and steps, the units
@@ -47,4 +47,35 @@ export async function latestControllerReading(db: Database, bankIds: number[]) {
     .orderBy(desc(readings.recordedAt))
     .limit(20);
   return rows.find((r) => typeof r.input.controllerPf === 'number' && typeof r.input.loadKw === 'number');
+}
+
+/** The site's flags not yet cleared, newest first, with their bank's name. */
+export async function openFlagsOfSite(db: Database, siteId: number) {
+  return db
+    .select({
+      id: flags.id,
+      kind: flags.kind,
+      severity: flags.severity,
+      bankId: flags.bankId,
+      bankName: banks.name,
+      target: flags.target,
+      targetId: flags.targetId,
+      message: flags.message,
+      state: flags.state,
+      correctiveOrderId: flags.correctiveOrderId,
+      raisedAt: flags.raisedAt,
+    })
+    .from(flags)
+    .innerJoin(banks, eq(banks.id, flags.bankId))
+    .where(and(eq(flags.siteId, siteId), ne(flags.state, 'cleared')))
+    .orderBy(desc(flags.raisedAt), desc(flags.id));
+}
+
+/** Orders of the site whose due date has passed and that are neither sealed nor withdrawn, oldest due first. */
+export async function overdueOrdersOfSite(db: Database, siteId: number, todayIso: string) {
+  return db
+    .select({ id: workOrders.id, title: workOrders.title, dueOn: workOrders.dueOn, state: workOrders.state })
+    .from(workOrders)
+    .where(and(eq(workOrders.siteId, siteId), lt(workOrders.dueOn, todayIso), notInArray(workOrders.state, ['sealed', 'withdrawn'])))
+    .orderBy(asc(workOrders.dueOn), asc(workOrders.id));
 }

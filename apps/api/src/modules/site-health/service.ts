@@ -12,7 +12,7 @@ import type { SiteHealth } from '@varden/schemas';
 import type { SiteScope } from '../../access/site-scope';
 import type { Database } from '../../db/client';
 import { AppError } from '../../http/app-error';
-import { latestControllerReading, loadSiteForHealth } from './repository';
+import { latestControllerReading, loadSiteForHealth, openFlagsOfSite, overdueOrdersOfSite } from './repository';
 
 type Bands = SiteHealth['bands'];
 const noBands = (): Bands => ({ healthy: 0, watch: 0, replace: 0, remeasure: 0, noReading: 0 });
@@ -32,7 +32,7 @@ function triangleOf(kw: number, kvar: number) {
  * switchable combination with the supply, the tuning of detuned steps and the estimated cost of
  * the lost correction. All figures come from packages/engineering.
  */
-export async function siteHealth(db: Database, scope: SiteScope, siteId: number, hoursPerMonth: number): Promise<SiteHealth> {
+export async function siteHealth(db: Database, scope: SiteScope, siteId: number, hoursPerMonth: number, today = new Date()): Promise<SiteHealth> {
   const data = await loadSiteForHealth(db, siteId);
   if (!data || (scope !== 'all' && !scope.includes(siteId))) throw new AppError('not_found', `Site ${siteId} does not exist.`);
   const { site } = data;
@@ -94,7 +94,8 @@ export async function siteHealth(db: Database, scope: SiteScope, siteId: number,
         },
       ];
     });
-    const undetunedKvar = bank.detuned ? [] : stepResults.map((s) => s.effectiveKvar).filter((k) => k > 0);
+    // Steps that deliver nothing switch in no capacitance, so they take no part in the resonance.
+    const delivering = bank.detuned ? [] : stepResults.filter((s) => s.effectiveKvar > 0);
     return {
       id: bank.id,
       name: bank.name,
@@ -104,13 +105,13 @@ export async function siteHealth(db: Database, scope: SiteScope, siteId: number,
       effectiveKvar: sum(stepResults.map((s) => s.effectiveKvar)),
       steps: stepResults,
       resonance:
-        undetunedKvar.length > 0
+        delivering.length > 0
           ? bankResonance({
               transformerKva: site.transformerKva,
               impedancePct: site.transformerImpedancePct,
               ...(site.utilityShortCircuitKva ? { utilityShortCircuitKva: site.utilityShortCircuitKva } : {}),
-              stepsKvar: undetunedKvar,
-            })
+              stepsKvar: delivering.map((s) => s.effectiveKvar),
+            }).map(({ stepsOn, ...rest }) => ({ stepNumbers: stepsOn.map((i) => delivering[i]!.number), ...rest }))
           : [],
     };
   });
@@ -118,7 +119,13 @@ export async function siteHealth(db: Database, scope: SiteScope, siteId: number,
   const installedKvar = sum(banks.map((b) => b.installedKvar));
   const effectiveKvar = sum(banks.map((b) => b.effectiveKvar));
   const lostKvar = Math.max(0, installedKvar - effectiveKvar);
-  const load = await siteLoad(db, site, data.banks.map((b) => b.id), effectiveKvar);
+  const [load, openFlags, overdueOrders] = await Promise.all([
+    siteLoad(db, site, data.banks.map((b) => b.id), effectiveKvar),
+    openFlagsOfSite(db, site.id),
+    overdueOrdersOfSite(db, site.id, today.toISOString().slice(0, 10)),
+  ]);
+  const readingTimes = [...data.units.map((u) => u.latest?.recordedAt), load?.recordedAt].filter((t): t is Date => t instanceof Date);
+  const newestReadingAt = readingTimes.length > 0 ? new Date(Math.max(...readingTimes.map((t) => t.getTime()))) : null;
 
   let power: Pick<SiteHealth, 'reachedPf' | 'leading' | 'requiredKvar' | 'missingKvar' | 'targetMet' | 'triangle' | 'cost'> = {
     reachedPf: null,
@@ -182,6 +189,9 @@ export async function siteHealth(db: Database, scope: SiteScope, siteId: number,
     load: load ? { ...load, recordedAt: load.recordedAt?.toISOString() ?? null } : null,
     ...power,
     banks,
+    newestReadingAt: newestReadingAt?.toISOString() ?? null,
+    openFlags: openFlags.map((f) => ({ ...f, state: f.state as 'open' | 'in-hand', raisedAt: f.raisedAt.toISOString() })),
+    overdueOrders,
     engineeringVersion: ENGINEERING_VERSION,
   };
 }

@@ -8,6 +8,7 @@ import { SiteHealthView } from '../../../features/fleet/components/site-health-v
 import { fleetLinks } from '../../../features/fleet/lib/fleet-links';
 import { formatNumber, nbsp, targetPfText } from '../../../features/fleet/lib/number-format';
 import { isApiError } from '../../../lib/api-client';
+import { formatDate } from '../../../lib/date-format';
 
 function siteIdOf(value: string | undefined): number {
   const id = Number(value);
@@ -28,8 +29,6 @@ export const clientLoader =
       if (isApiError(error) && error.status === 404) throw data({ message: error.message }, { status: 404 });
       throw error;
     }
-    // Not awaited: the site's overdue orders join "what to do next" when they arrive.
-    void queryClient.prefetchQuery(fleetQueries.overview());
     return null;
   };
 
@@ -40,7 +39,6 @@ export default function SiteHealthPage() {
   const navigation = useNavigation();
   const hours = hoursPerMonthOf(search);
   const health = useQuery(fleetQueries.siteHealth(siteId, hours));
-  const fleet = useQuery(fleetQueries.overview());
 
   if (!health.data) {
     return health.isError ? <p role="alert">Could not load the site’s health: {health.error.message}</p> : <p className="text-ink-muted">Loading the site’s health…</p>;
@@ -71,7 +69,8 @@ export default function SiteHealthPage() {
               {nbsp}V, {formatNumber(site.frequencyHz, 0)}
               {nbsp}Hz
             </span>{' '}
-            · PF target <span className="numeric">{targetPfText(site.targetPf)}</span> · from each unit’s latest reading
+            · PF target <span className="numeric">{targetPfText(site.targetPf)}</span> ·{' '}
+            {site.newestReadingAt ? <>readings up to {formatDate(site.newestReadingAt)}</> : 'no reading yet'}
           </>
         }
         actions={
@@ -90,7 +89,6 @@ export default function SiteHealthPage() {
       />
       <SiteHealthView
         health={site}
-        {...(fleet.data ? { overdueOrders: fleet.data.overdueOrders } : {})}
         onHoursChange={setHours}
         busy={health.isFetching || navigation.state === 'loading'}
       />

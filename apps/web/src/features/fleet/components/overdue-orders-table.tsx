@@ -1,6 +1,7 @@
 import type { FleetOverview } from '@varden/schemas';
 import { Link } from 'react-router-dom';
 import { formatDate } from '../../../lib/date-format';
+import { StateMark } from '../../work-orders/components/state-mark';
 import { fleetLinks } from '../lib/fleet-links';
 import { FigureTable, type FigureColumn } from './figure-table';
 
@@ -28,7 +29,7 @@ export function OverdueOrdersTable({ orders, today = new Date() }: { orders: Fle
       ),
     },
     { header: 'Site', cell: (o) => <Link to={fleetLinks.siteHealth(o.siteId)}>{o.siteName}</Link> },
-    { header: 'State', cell: (o) => o.state },
+    { header: 'State', cell: (o) => <StateMark state={o.state} /> },
     { header: 'Due', align: 'end', cell: (o) => formatDate(o.dueOn) },
     {
       header: 'Overdue by',

@@ -21,7 +21,7 @@ const columns: FigureColumn<Projected>[] = [
   },
   { header: 'Site', cell: (p) => <Link to={fleetLinks.siteHealth(p.siteId)}>{p.siteName}</Link> },
   { header: 'Bank', cell: (p) => <Link to={fleetLinks.bank(p.bankId)}>{p.bankName}</Link> },
-  { header: 'Step', align: 'end', cell: (p) => p.stepNumber },
+  { header: 'Step', align: 'end', cell: (p) => <Link to={fleetLinks.step(p.stepId)}>{p.stepNumber}</Link> },
   { header: 'Position', align: 'end', cell: (p) => p.position },
   { header: 'Loss rate', align: 'end', cell: (p) => `${signedPct(p.ratePctPerYear, 1)} a year` },
   { header: 'Latest deviation', align: 'end', cell: (p) => signedPct(p.latestDeviationPct, 1) },

@@ -1,4 +1,4 @@
-import type { FleetOverview, SiteHealth } from '@varden/schemas';
+import type { SiteHealth } from '@varden/schemas';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { formatDate, formatDateTime } from '../../../lib/date-format';
@@ -11,6 +11,7 @@ import { HarmonicAxisFigure } from './harmonic-axis-figure';
 import { HealthPanel } from './health-panel';
 import { NextStepsList } from './next-steps-list';
 import { PowerTriangleFigure } from './power-triangle-figure';
+import { SiteFlagsTable } from './site-flags-table';
 import { StepOutputTables } from './step-output-table';
 import { TuningDriftChart } from './tuning-drift-chart';
 
@@ -18,20 +19,17 @@ const costPanelId = 'cost-of-lost-correction';
 
 type SiteHealthViewProps = {
   health: SiteHealth;
-  /** The fleet's overdue orders, when loaded: the site's own become next steps. */
-  overdueOrders?: FleetOverview['overdueOrders'];
   onHoursChange: (hours: number) => void;
   /** True while figures for other hours are on their way. */
   busy: boolean;
 };
 
 /** The site health page's content: everything below the page header, also its printed report. */
-export function SiteHealthView({ health, overdueOrders, onHoursChange, busy }: SiteHealthViewProps) {
+export function SiteHealthView({ health, onHoursChange, busy }: SiteHealthViewProps) {
   const steps = nextSteps({
     health,
     links: fleetLinks,
     formatDate,
-    ...(overdueOrders ? { overdueOrders } : {}),
   });
   const hasTuning = tuningRows(health).length > 0;
   // When these figures were shown, fixed on first draw (for the printed report).
@@ -44,6 +42,18 @@ export function SiteHealthView({ health, overdueOrders, onHoursChange, busy }: S
 
       <HealthPanel title="What to do next" lead="Built from the figures on this page, the most urgent first.">
         <NextStepsList steps={steps} />
+      </HealthPanel>
+
+      <HealthPanel
+        title="Open flags"
+        lead="Findings of this site’s readings not yet cleared, newest first."
+        actions={
+          <Link to={fleetLinks.flagQueue(health.siteId)} data-print="hide" className="font-medium">
+            Open the flag queue
+          </Link>
+        }
+      >
+        <SiteFlagsTable flags={health.openFlags} />
       </HealthPanel>
 
       <HealthPanel
@@ -86,7 +96,9 @@ export function SiteHealthView({ health, overdueOrders, onHoursChange, busy }: S
       </HealthPanel>
 
       <p className="text-base text-ink-muted desk:text-sm">
-        Figures from each unit’s stored latest evaluation (engineering {health.engineeringVersion}), shown {formatDateTime(shownAt)}.
+        Figures from each unit’s stored latest evaluation (engineering {health.engineeringVersion}),{' '}
+        {health.newestReadingAt ? <>the newest reading taken {formatDateTime(health.newestReadingAt)}</> : 'no reading recorded yet'}; shown{' '}
+        {formatDateTime(shownAt)}.
       </p>
     </div>
   );

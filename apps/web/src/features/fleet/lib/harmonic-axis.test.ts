@@ -46,10 +46,10 @@ describe('harmonicAxisMarkers', () => {
     expect(plain(beyond!.label)).toBe('Bank B: 2 combinations at 18.3–25.8');
   });
 
-  test('maps the API’s step indices onto step numbers when a dead step drops out', () => {
+  test('names the step numbers the API reports, so a dead step that dropped out is not counted', () => {
     const bank = undetunedBank();
     bank.steps[0] = { ...bank.steps[0]!, effectiveKvar: 0 };
-    bank.resonance = [{ stepsOn: [0, 1, 2], kvar: 75, order: 14.91, nearestHarmonic: 13, distancePct: 14.7, warning: false }];
+    bank.resonance = [{ stepNumbers: [2, 3, 4], kvar: 75, order: 14.91, nearestHarmonic: 13, distancePct: 14.7, warning: false }];
     const [marker] = harmonicAxisMarkers({ frequencyHz: 50, banks: [bank] });
     expect(marker!.steps).toBe('steps 2–4');
   });

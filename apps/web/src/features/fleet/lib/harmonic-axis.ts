@@ -1,7 +1,7 @@
 import { CHARACTERISTIC_HARMONICS } from '@varden/engineering';
 import type { SiteHealth } from '@varden/schemas';
 import { formatNumber, nbsp, ordinal } from './number-format';
-import { resonanceStepNumbers, stepsText } from './step-labels';
+import { stepsText } from './step-labels';
 
 /**
  * Placing a site's harmonic facts on an axis of harmonic orders: the characteristic orders
@@ -70,7 +70,7 @@ export function harmonicAxisMarkers(health: Pick<SiteHealth, 'banks' | 'frequenc
   for (const bank of health.banks) {
     const beyond: AxisMarker[] = [];
     for (const [i, resonance] of bank.resonance.entries()) {
-      const steps = stepsText(resonanceStepNumbers(bank, resonance));
+      const steps = stepsText(resonance.stepNumbers);
       const isBeyond = resonance.order > axisLastOrder;
       const near = resonance.warning ? `, within ${formatNumber(resonance.distancePct, 0, locale)}${nbsp}% of the ${ordinal(resonance.nearestHarmonic)}` : '';
       const marker: AxisMarker = {

@@ -80,13 +80,13 @@ describe('nextSteps', () => {
     expect(all).toContain('The lost correction costs an estimated 123 EUR a month at 500 hours of load');
   });
 
-  test('the site’s overdue orders, and only its own, lead to their pages', () => {
-    const health = siteHealthFixture({ bands: { ...noBands(), healthy: 4 }, targetMet: true });
-    const overdueOrders = [
-      { id: 31, title: 'Half-yearly inspection', siteId: 7, siteName: 'Alder Quay Cold Store', dueOn: '2026-11-10', state: 'dispatched' },
-      { id: 32, title: 'Elsewhere', siteId: 8, siteName: 'Other', dueOn: '2026-11-01', state: 'queued' },
-    ];
-    const overdue = nextSteps({ health, overdueOrders, links }).filter((s) => s.id.startsWith('overdue-'));
+  test('the site’s overdue orders lead to their pages', () => {
+    const health = siteHealthFixture({
+      bands: { ...noBands(), healthy: 4 },
+      targetMet: true,
+      overdueOrders: [{ id: 31, title: 'Half-yearly inspection', dueOn: '2026-11-10', state: 'dispatched' }],
+    });
+    const overdue = nextSteps({ health, links }).filter((s) => s.id.startsWith('overdue-'));
     expect(overdue).toEqual([
       { id: 'overdue-31', urgency: 'plan', text: '“Half-yearly inspection” was due on 2026-11-10 and is still dispatched', link: { href: '/work-orders/31', label: 'open the order' } },
     ]);

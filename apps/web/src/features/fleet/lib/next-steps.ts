@@ -1,6 +1,7 @@
-import type { FleetOverview, SiteHealth } from '@varden/schemas';
+import type { SiteHealth } from '@varden/schemas';
 import { countOf, formatNumber, nbsp, ordinal, pfText, quantityText, targetPfText } from './number-format';
-import { resonanceStepNumbers, stepOfBank, stepsText } from './step-labels';
+import { stateLabels } from '../../work-orders/lib/work-order-words';
+import { stepOfBank, stepsText } from './step-labels';
 
 /** How soon a next step wants doing: act (now), plan (book it), note (good to know). */
 export type Urgency = 'act' | 'plan' | 'note';
@@ -25,8 +26,6 @@ export type NextStepLinks = {
 
 export type NextStepInput = {
   health: SiteHealth;
-  /** The site's overdue orders, from the fleet overview, when known. */
-  overdueOrders?: FleetOverview['overdueOrders'];
   links: NextStepLinks;
   locale?: string;
   /** Formats a due date ("10 Jan 2026"). */
@@ -49,7 +48,7 @@ export function nextStepSentence(step: NextStep): string {
  * combinations resonating with the supply, over- or under-correction, the cost, and the
  * overdue orders.
  */
-export function nextSteps({ health, overdueOrders = [], links, locale, formatDate = (iso) => iso.slice(0, 10) }: NextStepInput): NextStep[] {
+export function nextSteps({ health, links, locale, formatDate = (iso) => iso.slice(0, 10) }: NextStepInput): NextStep[] {
   const steps: NextStep[] = [];
   const { bands } = health;
   const units = bands.healthy + bands.watch + bands.replace + bands.remeasure + bands.noReading;
@@ -105,7 +104,7 @@ export function nextSteps({ health, overdueOrders = [], links, locale, formatDat
     const warnings = bank.resonance.filter((r) => r.warning);
     if (warnings.length > 0) {
       const cases = warnings.map(
-        (r) => `with ${stepsText(resonanceStepNumbers(bank, r))} in (${kvar(r.kvar, locale)}) at order ${formatNumber(r.order, 1, locale)}, ${pct(r.distancePct, 0, locale)} from the ${ordinal(r.nearestHarmonic)}`,
+        (r) => `with ${stepsText(r.stepNumbers)} in (${kvar(r.kvar, locale)}) at order ${formatNumber(r.order, 1, locale)}, ${pct(r.distancePct, 0, locale)} from the ${ordinal(r.nearestHarmonic)}`,
       );
       steps.push({
         id: `resonance-${bank.id}`,
@@ -145,11 +144,11 @@ export function nextSteps({ health, overdueOrders = [], links, locale, formatDat
     });
   }
 
-  for (const order of overdueOrders.filter((o) => o.siteId === health.siteId)) {
+  for (const order of health.overdueOrders) {
     steps.push({
       id: `overdue-${order.id}`,
       urgency: 'plan',
-      text: `“${order.title}” was due on ${formatDate(order.dueOn)} and is still ${order.state}`,
+      text: `“${order.title}” was due on ${formatDate(order.dueOn)} and is still ${stateLabels[order.state].toLowerCase()}`,
       link: { href: links.workOrder(order.id), label: 'open the order' },
     });
   }

@@ -64,7 +64,7 @@ export function undetunedBank(values: Partial<Bank> = {}): Bank {
       const order = Math.sqrt(ssc / kvar);
       const nearest = [5, 7, 11, 13].reduce((best, n) => (Math.abs(order - n) / n < Math.abs(order - best) / best ? n : best));
       const distancePct = (100 * Math.abs(order - nearest)) / nearest;
-      return { stepsOn: Array.from({ length: i + 1 }, (_, j) => j), kvar, order, nearestHarmonic: nearest, distancePct, warning: distancePct <= 10 };
+      return { stepNumbers: Array.from({ length: i + 1 }, (_, j) => j + 1), kvar, order, nearestHarmonic: nearest, distancePct, warning: distancePct <= 10 };
     }),
     ...values,
   };
@@ -125,6 +125,9 @@ export function siteHealthFixture(values: Partial<SiteHealth> = {}): SiteHealth 
       assumptions: ['The load of 500 kW at PF 0.80 (as entered by the planner) lasts 500 hours a month.'],
     },
     banks: [undetunedBank()],
+    newestReadingAt: null,
+    openFlags: [],
+    overdueOrders: [],
     engineeringVersion: 'test',
     ...values,
   };

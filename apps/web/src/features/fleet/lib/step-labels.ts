@@ -1,17 +1,3 @@
-import type { SiteHealth } from '@varden/schemas';
-
-type BankHealth = SiteHealth['banks'][number];
-type ResonanceCase = BankHealth['resonance'][number];
-
-/**
- * The step numbers a resonance case switches in. The API's `stepsOn` holds indices into the
- * bank's undetuned steps that still deliver kvar (effective > 0), in step order, not step numbers.
- */
-export function resonanceStepNumbers(bank: Pick<BankHealth, 'steps'>, resonance: Pick<ResonanceCase, 'stepsOn'>): number[] {
-  const delivering = bank.steps.filter((step) => step.effectiveKvar > 0);
-  return resonance.stepsOn.map((index) => delivering[index]?.number ?? index + 1);
-}
-
 /** "step 2", "steps 1–4", "steps 1, 3 and 4": runs of consecutive numbers joined by an en dash. */
 export function stepsText(numbers: readonly number[]): string {
   const sorted = [...new Set(numbers)].sort((a, b) => a - b);
