@@ -2,7 +2,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { useQuery } from '@tanstack/react-query';
 import type { Permission } from '@varden/schemas';
 import { useId, useRef, useState, type KeyboardEvent } from 'react';
-import { Link, NavLink, Outlet, useNavigation } from 'react-router-dom';
+import { Link, Outlet, useLocation, useNavigation } from 'react-router-dom';
 import { NoticeArea } from '../../components/notice-area';
 import { SafetyNote } from '../../components/safety-note';
 import { ThemeSwitch } from '../../components/theme-switch';
@@ -12,8 +12,9 @@ import { AccountBlock } from '../../features/auth/components/account-block';
 import { permitted } from '../../features/auth/lib/permitted';
 import { loadSession } from '../../features/auth/lib/route-guards';
 import { classNames } from '../../lib/class-names';
+import { currentSection, type RailSection } from './current-section';
 
-export type Section = { label: string; href: string; permission?: Permission };
+export type Section = RailSection & { label: string; permission?: Permission };
 
 // The rail: one entry per section, shown to those whose permissions include the entry's
 // (the server decides anyway). Each role's home comes first, then the shared sections.
@@ -25,7 +26,7 @@ export const sections: readonly Section[] = [
   { label: 'Inspection plans', href: paths.plans.list.getHref(), permission: 'plans:manage' },
   { label: 'Flag queue', href: paths.flagQueue.getHref(), permission: 'work-orders:schedule' },
   { label: 'Site health', href: paths.siteHealth.getHref(), permission: 'reports:read' },
-  { label: 'Fleet health', href: paths.fleetHealth.getHref(), permission: 'reports:read' },
+  { label: 'Fleet health', href: paths.fleetHealth.getHref(), permission: 'reports:read', alsoOn: [paths.siteHealthOf.path] },
   { label: 'Register', href: paths.register.sites.getHref(), permission: 'register:read' },
   { label: 'People', href: paths.people.getHref(), permission: 'users:manage' },
   { label: 'Audit log', href: paths.auditLog.getHref(), permission: 'audit-log:read' },
@@ -106,6 +107,9 @@ function SignedInFrame({ me }: { me: SessionResponse }) {
   const menuButton = useRef<HTMLButtonElement>(null);
   const menuId = useId();
   const closeMenu = () => setMenuOpen(false);
+  const { pathname } = useLocation();
+  const shown = permitted(sections, me);
+  const current = currentSection(shown, pathname);
 
   const closeMenuOnEscape = (event: KeyboardEvent) => {
     if (event.key !== 'Escape' || !menuOpen) return;
@@ -150,20 +154,19 @@ function SignedInFrame({ me }: { me: SessionResponse }) {
         >
           <nav aria-label="Sections">
             <ul className="grid gap-1">
-              {permitted(sections, me).map((section) => (
+              {shown.map((section) => (
                 <li key={section.href}>
-                  <NavLink
+                  <Link
                     to={section.href}
                     onClick={closeMenu}
-                    className={({ isActive }) =>
-                      classNames(
-                        'flex min-h-touch items-center rounded border-l-4 px-3 text-base text-frame-ink no-underline desk:min-h-control desk:text-sm',
-                        isActive ? 'border-frame-focus bg-frame-active font-semibold' : 'border-transparent hover:bg-frame-active',
-                      )
-                    }
+                    aria-current={section === current ? 'page' : undefined}
+                    className={classNames(
+                      'flex min-h-touch items-center rounded border-l-4 px-3 text-base text-frame-ink no-underline desk:min-h-control desk:text-sm',
+                      section === current ? 'border-frame-focus bg-frame-active font-semibold' : 'border-transparent hover:bg-frame-active',
+                    )}
                   >
                     {section.label}
-                  </NavLink>
+                  </Link>
                 </li>
               ))}
             </ul>
