@@ -508,7 +508,8 @@ export async function seedDemoWork(ctx: AppContext): Promise<void> {
       if (flag) {
         const { workOrder } = await raiseCorrectiveOrder(ctx, planner, flag.id, { assigneeId: technician.id, dueOn: addDays(today, 2), priority: 'high' });
         const raisedAt = at(addDays(done, 2), 8, 30);
-        const onSiteAt = at(today, 7, 30);
+        // On site since an hour and a half before the seed runs, whatever its hour (a reading may never be dated ahead).
+        const onSiteAt = new Date(Date.now() - 90 * 60_000);
         await ctx.db.update(workOrderTransitions).set({ at: raisedAt }).where(eq(workOrderTransitions.workOrderId, workOrder.id));
         await transition(ctx, workOrder.id, 'queued', 'dispatched', planner, at(addDays(done, 2), 8, 45));
         await transition(ctx, workOrder.id, 'dispatched', 'on-site', technician, onSiteAt);
@@ -516,7 +517,7 @@ export async function seedDemoWork(ctx: AppContext): Promise<void> {
           .update(workOrders)
           .set({ state: 'on-site', createdAt: raisedAt, safetyAcknowledgedAt: onSiteAt, safetyAcknowledgedById: technician.id, version: 3 })
           .where(eq(workOrders.id, workOrder.id));
-        await record(ctx, technician, workOrder.id, readingsFor(story, bank, { years: 0, start: at(today, 7, 45), unitsOnly: [3], fuseSetsOnly: [3] }, commissionedYearsAgo));
+        await record(ctx, technician, workOrder.id, readingsFor(story, bank, { years: 0, start: new Date(onSiteAt.getTime() + 15 * 60_000), unitsOnly: [3], fuseSetsOnly: [3] }, commissionedYearsAgo));
       }
       // A quarterly check by hand, dispatched for next week.
       await openOrder(
