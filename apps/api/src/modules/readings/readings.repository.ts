@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, inArray, isNull, ne } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
 import type { Executor } from '../../access/executor';
 import {
   banks,
@@ -169,24 +169,36 @@ export async function insertReading(db: Executor, values: typeof readings.$infer
   return created!.id;
 }
 
-/** Moves a unit's latest evaluation to this reading unless a reading taken later is already stored. */
+/**
+ * Moves a unit's latest evaluation to this reading unless a reading taken later is already stored.
+ * One upsert, not a locking read then an insert: SELECT … FOR UPDATE on a unit with no row yet
+ * takes a gap lock, and two banks' first readings then deadlock on each other's gap when they
+ * insert (seen under the field load test). Readings of one unit are already serialised by the
+ * bank lock; the IF keeps the later reading when they arrive out of order.
+ */
 export async function advanceUnitLatest(
   db: Executor,
   values: { unitId: number; readingId: number; band: NonNullable<ReadingRow['band']>; deviationPct: number; kvarAtRated: number; legsUF: number[]; recordedAt: Date },
 ): Promise<boolean> {
-  const [current] = await db
-    .select({ recordedAt: unitLatestEvaluations.recordedAt })
-    .from(unitLatestEvaluations)
-    .where(eq(unitLatestEvaluations.unitId, values.unitId))
-    .for('update');
-  if (!current) {
-    await db.insert(unitLatestEvaluations).values(values);
-    return true;
-  }
-  if (values.recordedAt.getTime() < current.recordedAt.getTime()) return false;
-  const { unitId, ...rest } = values;
-  await db.update(unitLatestEvaluations).set(rest).where(eq(unitLatestEvaluations.unitId, unitId));
-  return true;
+  const later = sql`VALUES(${sql.identifier('recorded_at')}) >= ${unitLatestEvaluations.recordedAt}`;
+  const keepLater = (column: string) =>
+    sql`IF(${later}, VALUES(${sql.identifier(column)}), ${sql.identifier(column)})`;
+  // MariaDB applies the assignments left to right, so recorded_at, which the test reads, goes last.
+  const [result] = await db
+    .insert(unitLatestEvaluations)
+    .values(values)
+    .onDuplicateKeyUpdate({
+      set: {
+        readingId: keepLater('reading_id'),
+        band: keepLater('band'),
+        deviationPct: keepLater('deviation_pct'),
+        kvarAtRated: keepLater('kvar_at_rated'),
+        legsUF: keepLater('legs_uf'),
+        recordedAt: keepLater('recorded_at'),
+      },
+    });
+  // affectedRows: 1 inserted, 2 updated, 0 kept the later reading already stored.
+  return (result as unknown as { affectedRows: number }).affectedRows > 0;
 }
 
 /** Flags not yet cleared (open or in hand) on these targets, as "kind target id" keys. */
