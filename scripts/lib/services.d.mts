@@ -5,3 +5,15 @@ export function startStandaloneMariaDb(options: { dataDir: string; port: number;
   stop(): Promise<void>;
   restart(): Promise<void>;
 }>;
+export function startStandaloneS3(options: { dataDir: string; port: number; bucket?: string }): Promise<{
+  endpoint: string;
+  bucket: string;
+  stop(): Promise<void>;
+  restart(): Promise<void>;
+}>;
+export function startStandaloneMail(options: { smtpPort: number; webPort: number }): Promise<{
+  smtpUrl: string;
+  webUrl: string;
+  stop(): Promise<void>;
+  restart(): Promise<void>;
+}>;

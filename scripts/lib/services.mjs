@@ -375,3 +375,45 @@ export async function startStandaloneMariaDb({ dataDir, port, database = 'varden
     },
   };
 }
+
+/**
+ * An S3 fake of its own for fault tests: s3rver on `port` with files in `dataDir`, stoppable and
+ * restartable on the same files and port, as an outage of the object store and its return.
+ */
+export async function startStandaloneS3({ dataDir, port, bucket = 'varden-fault' }) {
+  let registry = children();
+  const options = { dataDir, port, bucket, quiet: true, registry };
+  const first = await startS3(options);
+  return {
+    endpoint: first.endpoint,
+    bucket,
+    async stop() {
+      await registry.stopAll();
+    },
+    async restart() {
+      registry = children();
+      await startS3({ ...options, registry });
+    },
+  };
+}
+
+/**
+ * A mail fake of its own for fault tests: maildev on `smtpPort` (web inbox on `webPort`),
+ * stoppable and restartable on the same ports. maildev keeps its inbox in memory, so a restart
+ * starts with an empty one.
+ */
+export async function startStandaloneMail({ smtpPort, webPort }) {
+  let registry = children();
+  const first = await startMail({ smtpPort, webPort, quiet: true, registry });
+  return {
+    smtpUrl: first.smtpUrl,
+    webUrl: first.webUrl,
+    async stop() {
+      await registry.stopAll();
+    },
+    async restart() {
+      registry = children();
+      await startMail({ smtpPort, webPort, quiet: true, registry });
+    },
+  };
+}
