@@ -216,6 +216,13 @@ test('the supervisor returns an order with a reason, then seals it and sees the 
   expect((await order(supervisorCookie, id)).state).toBe('sent-back');
   const returned = await latestMailTo(app, technician.email, `Sent back: work order ${id}, ${siteName}`);
   expect(returned?.text).toContain(reason);
+  // The planner's table says why it came back, without opening the order.
+  const desk = await pageFor(plannerCookie);
+  await visit(desk, `${app.url}/work-orders?state=sent-back&q=${encodeURIComponent(title)}`);
+  const sentBackRow = desk.locator('tbody tr', { hasText: title });
+  await expect.poll(() => sentBackRow.count()).toBe(1);
+  expect(await sentBackRow.innerText()).toContain(`Why: ${reason}`);
+  await desk.close();
 
   // The technician goes back, measures again and resubmits.
   await fieldVisit(id, -0.03);

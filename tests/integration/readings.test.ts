@@ -450,6 +450,8 @@ describe('idempotency', () => {
     const first = await record(orderId, body);
     const second = await record(orderId, body);
     expect([first.status, second.status]).toEqual([201, 200]);
+    // The answer echoes the key, so a phone can match it to the reading it queued.
+    expect(first.body.idempotencyKey).toBe(body.idempotencyKey);
     expect(second.body).toEqual(first.body);
     expect(await rowsOf(orderId)).toBe(1);
   });

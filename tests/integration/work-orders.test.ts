@@ -363,7 +363,12 @@ describe('the state machine', () => {
     expect(noReason.body.error.fields).toHaveProperty('comment');
     r = await move(supervisor, order.id, 'sent-back', 4, { comment: 'Step 2 was not measured: measure it.' });
     expect(r.status).toBe(200);
-    expect(r.body.state).toBe('sent-back');
+    expect(r.body).toMatchObject({ state: 'sent-back', returnReason: 'Step 2 was not measured: measure it.' });
+    // The technician's list and the planner's table carry why, without opening the order.
+    const mine = await api('GET', '/api/work-orders?assigneeId=me&state=sent-back', technician);
+    expect(mine.body.items.find((o: { id: number }) => o.id === order.id)).toMatchObject({ state: 'sent-back', returnReason: 'Step 2 was not measured: measure it.' });
+    const desk = await api('GET', `/api/work-orders?bankId=${bank.bankId}&state=sent-back`, planner);
+    expect(desk.body.items.find((o: { id: number }) => o.id === order.id).returnReason).toBe('Step 2 was not measured: measure it.');
 
     r = await move(technician, order.id, 'on-site', 5);
     expect(r.status).toBe(200);
@@ -648,6 +653,22 @@ describe('workload', () => {
     expect(res.body.unassigned).toMatchObject({ userId: null });
     expect((await api('GET', '/api/work-orders/workload?from=2026-06-30&to=2026-06-01', planner)).status).toBe(400);
     expect((await api('GET', '/api/work-orders/workload?from=2026-06-01&to=2026-06-30', viewer)).status).toBe(403);
+  });
+});
+
+describe('GET /api/technicians', () => {
+  test('lists active technicians to planners with id, name and e-mail only', async () => {
+    const gone = await person(['technician']);
+    await app.ctx.db.update(users).set({ active: false }).where(eq(users.id, gone.id));
+    const res = await api('GET', '/api/technicians', planner);
+    expect(res.status).toBe(200);
+    const items = res.body.items as Array<{ id: number; name: string; email: string }>;
+    expect(res.body.total).toBe(items.length);
+    expect(items.find((t) => t.id === technician.id)).toEqual({ id: technician.id, name: technician.name, email: technician.email });
+    expect(items.some((t) => t.id === gone.id)).toBe(false);
+    expect(items.some((t) => t.id === supervisor.id || t.id === planner.id)).toBe(false);
+    expect(items.every((t) => Object.keys(t).sort().join() === 'email,id,name')).toBe(true);
+    for (const who of [technician, supervisor, viewer, admin]) expect((await api('GET', '/api/technicians', who)).status).toBe(403);
   });
 });
 

@@ -150,6 +150,8 @@ export const reading = z.object({
   workOrderId: z.number(),
   target: z.enum(['capacitor-unit', 'contactor', 'reactor', 'fuse-set', 'bank']),
   targetId: z.number(),
+  /** The key the phone sent it with: a retry with the same key answers this same reading. */
+  idempotencyKey: z.string(),
   input: z.record(z.string(), z.unknown()),
   /** For a capacitor: legsUF, kvarAtRated, deviationPct, legDeviationsPct, unbalanceRatio, band, reasons. */
   evaluation: z.record(z.string(), z.unknown()),

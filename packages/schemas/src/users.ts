@@ -51,6 +51,15 @@ export const user = z.object({
 });
 export type User = z.infer<typeof user>;
 
+/**
+ * GET /api/technicians: the active technicians a planner may give an order to, by name; only
+ * what assigning needs (the people administration keeps the rest).
+ */
+export const technician = z.object({ id: z.number(), name: z.string(), email: z.string() });
+export type Technician = z.infer<typeof technician>;
+export const technicianList = listResponse(technician);
+export type TechnicianList = z.infer<typeof technicianList>;
+
 export const userIdParams = z.object({ id: z.coerce.number().int().positive('A user id') });
 
 export const userSorts = ['name', '-name', 'email', '-email', 'createdAt', '-createdAt', 'lastSignInAt', '-lastSignInAt'] as const;

@@ -149,6 +149,8 @@ export const workOrder = z.object({
   assigneeId: z.number().nullable(),
   assigneeName: z.string().nullable(),
   state: z.enum(workOrderStates),
+  /** Why a supervisor last sent the order back (the comment of its latest move to sent-back), or null when never sent back. */
+  returnReason: z.string().nullable(),
   locked: z.boolean(),
   overdue: z.boolean(),
   safetyAcknowledgedAt: z.string().nullable(),

@@ -155,6 +155,7 @@ export function toReading(row: { reading: ReadingRow; recordedByName: string }):
     workOrderId: r.workOrderId,
     target: r.target,
     targetId: r.targetId,
+    idempotencyKey: r.idempotencyKey,
     input: r.input,
     evaluation: r.evaluation,
     band: r.band,

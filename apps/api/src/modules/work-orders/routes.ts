@@ -10,7 +10,7 @@ import { getWorkOrderDetail, getWorkOrderReview } from './order-detail.service';
 import { signedRecordPdf } from './record.service';
 import { transitionWorkOrder } from './transitions.service';
 import { createWorkOrder, listWorkOrders, updateWorkOrder } from './work-orders.service';
-import { workloadOf } from './workload.service';
+import { assignableTechnicians, workloadOf } from './workload.service';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() });
 const id = (res: Response) => (res.locals.params as z.output<typeof idParams>).id;
@@ -30,6 +30,10 @@ export function workOrderRoutes(ctx: AppContext): Router {
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="work-orders-${new Date().toISOString().slice(0, 10)}.csv"`);
     res.send(`\uFEFF${csv}`);
+  });
+  // Whom a planner may assign: active technicians with id, name and e-mail only.
+  router.get('/technicians', schedule, async (_req, res) => {
+    res.json(await assignableTechnicians(ctx));
   });
   router.get('/work-orders/workload', schedule, validate({ query: workloadQuery }), async (_req, res) => {
     res.json(await workloadOf(ctx, res.locals.query));

@@ -28,6 +28,7 @@ export function toWorkOrder(view: WorkOrderView, now: Date = new Date()): WorkOr
     assigneeId: o.assigneeId,
     assigneeName: view.assigneeName,
     state: o.state,
+    returnReason: view.returnReason ?? null,
     locked: o.locked,
     overdue: isOverdue(o, view.siteTimeZone, now),
     safetyAcknowledgedAt: iso(o.safetyAcknowledgedAt),

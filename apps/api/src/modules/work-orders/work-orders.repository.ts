@@ -18,6 +18,8 @@ export interface WorkOrderView {
   siteTimeZone: string;
   bankName: string;
   assigneeName: string | null;
+  /** The comment of the order's latest move to sent-back, or null when it was never sent back. */
+  returnReason: string | null;
 }
 
 const assignee = alias(users, 'assignee');
@@ -28,6 +30,7 @@ const viewColumns = {
   siteTimeZone: sites.timeZone,
   bankName: banks.name,
   assigneeName: assignee.name,
+  returnReason: sql<string | null>`(select ${workOrderTransitions.comment} from ${workOrderTransitions} where ${workOrderTransitions.workOrderId} = ${workOrders.id} and ${workOrderTransitions.toState} = 'sent-back' order by ${workOrderTransitions.at} desc, ${workOrderTransitions.id} desc limit 1)`,
 };
 
 const viewFrom = (db: Executor) =>

@@ -1,4 +1,4 @@
-import { openWorkOrderStates, type Workload, type workloadQuery } from '@varden/schemas';
+import { openWorkOrderStates, type TechnicianList, type Workload, type workloadQuery } from '@varden/schemas';
 import { eq, inArray } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { AppContext } from '../../context';
@@ -42,4 +42,10 @@ export async function workloadOf(ctx: AppContext, q: z.output<typeof workloadQue
     if (isOverdue(o, o.timeZone, now)) row.overdue += 1;
   }
   return { from: q.from, to: q.to, technicians: [...rows.values()], unassigned };
+}
+
+/** The people a planner may give an order to: active technicians by name, with id, name and e-mail only. */
+export async function assignableTechnicians(ctx: AppContext): Promise<TechnicianList> {
+  const items = await activePeopleWithRole(ctx.db, 'technician');
+  return { items: items.map(({ id, name, email }) => ({ id, name, email })), total: items.length };
 }

@@ -1,4 +1,4 @@
-import { useQueries, useQuery } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import type { WorkOrder } from '@varden/schemas';
 import { useId } from 'react';
 import { Link } from 'react-router-dom';
@@ -7,7 +7,7 @@ import { FormAlert } from '../../../components/form/form-alert';
 import { paths } from '../../../config/paths';
 import { formatDate } from '../../../lib/date-format';
 import { classNames } from '../../../lib/class-names';
-import { fieldQueries, sentBackReason } from '../api/field-queries';
+import { fieldQueries } from '../api/field-queries';
 import { stateWords } from '../api/state-words';
 import { countFor } from '../outbox/outbox';
 import { useOutboxSnapshot } from '../outbox/use-field-outbox';
@@ -39,7 +39,7 @@ function StateTag({ order }: { order: WorkOrder }) {
   );
 }
 
-function OrderRow({ order, reason, today }: { order: WorkOrder; reason: string | null | undefined; today: string }) {
+function OrderRow({ order, today }: { order: WorkOrder; today: string }) {
   const { items } = useOutboxSnapshot();
   const { waiting, refused } = countFor(items, order.id);
   const due = dueWords(order, today);
@@ -64,7 +64,7 @@ function OrderRow({ order, reason, today }: { order: WorkOrder; reason: string |
         {order.state === 'sent-back' && (
           <span className="rounded border-l-4 border-watch bg-sunken px-3 py-2 text-base" data-testid="sent-back-reason">
             <span className="font-semibold">Supervisor’s reason: </span>
-            {reason === undefined ? 'loading…' : reason || 'none given'}
+            {order.returnReason || 'none given'}
           </span>
         )}
         {(waiting > 0 || refused > 0) && (
@@ -87,9 +87,6 @@ export function TodaysOrdersList() {
   const headingId = useId();
   const list = useQuery(fieldQueries.myOrders());
   const orders = list.data?.items ?? [];
-  const returned = orders.filter((o) => o.state === 'sent-back');
-  const details = useQueries({ queries: returned.map((o) => ({ ...fieldQueries.order(o.id), staleTime: 60_000 })) });
-  const reasons = new Map(returned.map((o, i) => [o.id, details[i]?.data ? (sentBackReason(details[i].data)?.comment ?? '') : undefined]));
   const today = todayIso();
 
   return (
@@ -113,7 +110,7 @@ export function TodaysOrdersList() {
       {orders.length > 0 && (
         <ul className="grid gap-3">
           {orders.map((order) => (
-            <OrderRow key={order.id} order={order} reason={reasons.get(order.id)} today={today} />
+            <OrderRow key={order.id} order={order} today={today} />
           ))}
         </ul>
       )}

@@ -33,6 +33,17 @@ export function DueDate({ order }: { order: Pick<WorkOrder, 'dueOn' | 'overdue'>
   );
 }
 
+/** Why a supervisor sent the order back, under its state while it waits in sent-back. */
+function ReturnReason({ order }: { order: WorkOrder }) {
+  if (order.state !== 'sent-back') return null;
+  return (
+    <span className="mt-1 block max-w-[22rem] text-base text-ink-muted desk:text-sm" data-testid="return-reason">
+      <span className="font-medium text-ink">Why: </span>
+      {order.returnReason || 'no reason given'}
+    </span>
+  );
+}
+
 function Assignee({ name }: { name: string | null }) {
   return name ? <span>{name}</span> : <span className="text-ink-muted">Not assigned</span>;
 }
@@ -52,6 +63,7 @@ const columns = [
           {/* On a phone the row is one column: the other facts stack under the title. */}
           <span className="mt-1 grid gap-1 text-base desk:hidden">
             <StateMark state={order.state} />
+            <ReturnReason order={order} />
             <span>
               Due <DueDate order={order} />
             </span>
@@ -66,7 +78,17 @@ const columns = [
       );
     },
   }),
-  column.accessor('state', { header: 'State', enableSorting: false, meta: { show: 'desk' }, cell: ({ getValue }) => <StateMark state={getValue()} /> }),
+  column.accessor('state', {
+    header: 'State',
+    enableSorting: false,
+    meta: { show: 'desk' },
+    cell: ({ row }) => (
+      <>
+        <StateMark state={row.original.state} />
+        <ReturnReason order={row.original} />
+      </>
+    ),
+  }),
   column.accessor('dueOn', { header: 'Due', meta: { show: 'desk' }, cell: ({ row }) => <DueDate order={row.original} /> }),
   column.accessor('siteName', {
     header: 'Site and bank',

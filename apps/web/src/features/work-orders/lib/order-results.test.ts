@@ -24,6 +24,7 @@ const reading = (over: Partial<Reading>): Reading => ({
   workOrderId: 7,
   target: 'capacitor-unit',
   targetId: 11,
+  idempotencyKey: 'reading-0000000000000001',
   input: { method: 'open-pairs', notes: '' },
   evaluation: { method: 'open-pairs', legsUF: [130, 131, 129], kvarAtRated: 23.8, deviationPct: -4.8, band: 'healthy', reasons: ['within tolerance'], warnings: [] },
   band: 'healthy',
