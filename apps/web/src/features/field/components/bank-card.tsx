@@ -1,12 +1,8 @@
 import type { Reading, WalkthroughBank } from '@varden/schemas';
-import { useMemo } from 'react';
-import { Controller, useForm, type Path } from 'react-hook-form';
+import { Controller, type Path } from 'react-hook-form';
 import { Button } from '../../../components/button';
-import { newIdempotencyKey } from '../outbox/answer-outcome';
-import { readingItemsOf } from '../outbox/outbox-queries';
-import { recordReading } from '../outbox/record-reading';
-import { useOutboxSnapshot } from '../outbox/use-field-outbox';
 import { parseDecimal } from '../readings/decimal';
+import { useComponentReading } from '../readings/use-component-reading';
 import { ComponentCard } from './component-card';
 import { BigToggle, DecimalField, NotesField } from './field-controls';
 import { OutboxItemStatus } from './outbox-item-status';
@@ -27,7 +23,7 @@ function formFrom(input: Record<string, unknown> | undefined): BankForm {
   };
 }
 
-const fieldOf = (path: PropertyKey[]): Path<BankForm> | 'root' => {
+const fieldOf = ({ path }: { path: PropertyKey[] }): Path<BankForm> | 'root' => {
   const head = String(path[0]);
   const fields: Record<string, Path<BankForm>> = { controllerPf: 'pf', loadKw: 'loadKw', voltageThdPct: 'thd', notes: 'notes' };
   return fields[head] ?? 'root';
@@ -35,48 +31,25 @@ const fieldOf = (path: PropertyKey[]): Path<BankForm> | 'root' => {
 
 /** The bank as a whole: the controller's power factor and the load it was read at, voltage THD, cleaning and filters. */
 export function BankCard({ orderId, bank, readings, editable }: { orderId: number; bank: WalkthroughBank; readings: readonly Reading[]; editable: boolean }) {
-  const { items } = useOutboxSnapshot();
-  const waiting = readingItemsOf(items, orderId, 'bank', bank.id);
-  const latestWaiting = waiting.at(-1);
-  const latestStored = readings.at(-1);
-  const defaults = useMemo(
-    () => formFrom((latestWaiting?.payload.kind === 'reading' ? latestWaiting.payload.input : latestStored?.input) as Record<string, unknown> | undefined),
-    // The form starts from what was recorded when the card first draws.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [],
-  );
-  const { control, register, handleSubmit, setError, reset, formState } = useForm<BankForm>({ defaultValues: defaults });
-  const recorded = Boolean(latestWaiting || latestStored);
+  const { form, latestWaiting, latestStored, recorded, submitWith } = useComponentReading({ orderId, target: 'bank', targetId: bank.id, readings, label: 'Bank readings', formFrom, fieldOf });
+  const { control, register, formState } = form;
   const errors = formState.errors;
 
-  const onSubmit = handleSubmit(async (values) => {
-    const optional = (key: string, v: string) => {
-      const n = parseDecimal(v);
-      return n === undefined ? {} : { [key]: n };
-    };
-    const issues = await recordReading(
-      orderId,
-      'Bank readings',
-      {
-        idempotencyKey: newIdempotencyKey(),
-        recordedAt: new Date().toISOString(),
-        target: 'bank',
-        targetId: bank.id,
-        ...optional('controllerPf', values.pf),
-        ...optional('loadKw', values.loadKw),
-        ...optional('voltageThdPct', values.thd),
-        cleaningDone: values.cleaningDone,
-        filtersDone: values.filtersDone,
-        notes: values.notes.trim(),
-      },
-      waiting,
-    );
-    if (issues) {
-      for (const issue of issues) setError(fieldOf(issue.path), { message: issue.message });
-      return;
-    }
-    reset(values);
-  });
+  const optional = (key: string, v: string) => {
+    const n = parseDecimal(v);
+    return n === undefined ? {} : { [key]: n };
+  };
+  const onSubmit = submitWith((values, stamp) => ({
+    ...stamp,
+    target: 'bank',
+    targetId: bank.id,
+    ...optional('controllerPf', values.pf),
+    ...optional('loadKw', values.loadKw),
+    ...optional('voltageThdPct', values.thd),
+    cleaningDone: values.cleaningDone,
+    filtersDone: values.filtersDone,
+    notes: values.notes.trim(),
+  }));
 
   return (
     <ComponentCard title="Bank" testId="bank-card" facts={`${bank.name} · ${bank.location || bank.siteName}`}>

@@ -1,11 +1,6 @@
 import { type ChecklistItem, type FieldMethod, type Photo, type Reading } from '@varden/schemas';
-import { useMemo } from 'react';
-import { Controller, useForm, useWatch, type Path } from 'react-hook-form';
+import { Controller, useWatch, type Path } from 'react-hook-form';
 import { Button } from '../../../components/button';
-import { newIdempotencyKey } from '../outbox/answer-outcome';
-import { readingItemsOf } from '../outbox/outbox-queries';
-import { recordReading } from '../outbox/record-reading';
-import { useOutboxSnapshot } from '../outbox/use-field-outbox';
 import { capacitorFieldOf, capacitorFormFrom, capacitorInputOf, capacitorValuesOf, emptyCapacitorForm, visualFindings, type CapacitorForm } from '../readings/capacitor-form';
 import {
   differsFromServer,
@@ -16,6 +11,7 @@ import {
   type UnitPlace,
   type WalkthroughUnit,
 } from '../readings/live-capacitor-result';
+import { useComponentReading } from '../readings/use-component-reading';
 import { LiveCapacitorResultView, ServerCapacitorResultView } from './capacitor-result';
 import { ComponentCard, FieldGroup } from './component-card';
 import { BigToggle, ChoiceGroup, DecimalField, NotesField } from './field-controls';
@@ -56,39 +52,29 @@ type CapacitorUnitCardProps = {
  * refused) and the server's own result.
  */
 export function CapacitorUnitCard({ orderId, stepNumber, unit, place, checklist, readings, photos, editable }: CapacitorUnitCardProps) {
-  const { items } = useOutboxSnapshot();
   const methods = methodsFor(unit, place);
-  const waiting = readingItemsOf(items, orderId, 'capacitor-unit', unit.id);
-  const latestWaiting = waiting.at(-1);
-  const latestStored = readings.at(-1);
   const subject = `Step ${stepNumber}, unit ${unit.position}`;
+  const reading = useComponentReading({
+    orderId,
+    target: 'capacitor-unit',
+    targetId: unit.id,
+    readings,
+    label: `${subject} · capacitance`,
+    formFrom: (previous) => (previous ? capacitorFormFrom(previous, methods[0] ?? 'per-element') : emptyCapacitorForm(methods[0] ?? 'per-element')),
+    fieldOf: (issue) => (capacitorFieldOf(issue.path) ?? 'root') as Path<CapacitorForm>,
+  });
+  const { latestWaiting, latestStored, recorded, submitWith } = reading;
 
-  const defaults = useMemo(() => {
-    const previous = latestWaiting?.payload.kind === 'reading' ? latestWaiting.payload.input : latestStored?.input;
-    return previous ? capacitorFormFrom(previous as Record<string, unknown>, methods[0] ?? 'per-element') : emptyCapacitorForm(methods[0] ?? 'per-element');
-    // The form starts from what was recorded when the card first draws; later records reset it themselves.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, []);
-
-  const { control, register, handleSubmit, setError, reset, formState } = useForm<CapacitorForm>({ defaultValues: defaults });
+  const { control, register, formState } = reading.form;
   const form = useWatch({ control }) as CapacitorForm;
   const live = liveCapacitorResult(unit, place, capacitorValuesOf(form));
   const server = latestStored ? serverCapacitorResult(latestStored) : null;
-  const recorded = Boolean(latestWaiting || latestStored);
   const asks = (item: ChecklistItem) => checklist.includes(item);
   const labels = tripletLabels[form.method](unit.connection);
   const field = tripletField[form.method];
   const unitOf = form.method === 'line-currents' ? 'A' : 'µF';
 
-  const onSubmit = handleSubmit(async (values) => {
-    const input = capacitorInputOf(values, unit, checklist, { idempotencyKey: newIdempotencyKey(), recordedAt: new Date().toISOString() });
-    const issues = await recordReading(orderId, `${subject} · capacitance`, input, waiting);
-    if (issues) {
-      for (const issue of issues) setError((capacitorFieldOf(issue.path) ?? 'root') as Path<CapacitorForm>, { message: issue.message });
-      return;
-    }
-    reset(values);
-  });
+  const onSubmit = submitWith((values, stamp) => capacitorInputOf(values, unit, checklist, stamp));
 
   const errors = formState.errors;
   const tripletErrors = errors[field];

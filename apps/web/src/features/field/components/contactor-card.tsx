@@ -1,14 +1,10 @@
 import type { WalkthroughBank, Reading } from '@varden/schemas';
-import { useMemo } from 'react';
-import { Controller, useForm, useWatch, type Path } from 'react-hook-form';
+import { Controller, useWatch, type Path } from 'react-hook-form';
 import { Button } from '../../../components/button';
 import { Quantity } from '../../../components/quantity';
-import { newIdempotencyKey } from '../outbox/answer-outcome';
-import { readingItemsOf } from '../outbox/outbox-queries';
-import { recordReading } from '../outbox/record-reading';
-import { useOutboxSnapshot } from '../outbox/use-field-outbox';
 import { parseDecimal } from '../readings/decimal';
 import { contactorFlagAbovePct, liveContactorResult } from '../readings/live-component-results';
+import { useComponentReading } from '../readings/use-component-reading';
 import { ComponentCard } from './component-card';
 import { ChoiceGroup, DecimalField, NotesField } from './field-controls';
 import { OutboxItemStatus } from './outbox-item-status';
@@ -37,7 +33,7 @@ function formFrom(input: Record<string, unknown> | undefined): ContactorForm {
   };
 }
 
-const fieldOf = (path: PropertyKey[]): Path<ContactorForm> | 'root' => {
+const fieldOf = ({ path }: { path: PropertyKey[] }): Path<ContactorForm> | 'root' => {
   const [head, index] = path.map(String);
   if (head === 'operationsCounter') return 'counter';
   if (head === 'contactCondition') return 'condition';
@@ -48,47 +44,30 @@ const fieldOf = (path: PropertyKey[]): Path<ContactorForm> | 'root' => {
 
 /** A step's contactor: the operations counter (share of its rated endurance at once), contact condition, pre-charge resistors. */
 export function ContactorCard({ orderId, stepNumber, contactor, readings, editable }: { orderId: number; stepNumber: number; contactor: Contactor; readings: readonly Reading[]; editable: boolean }) {
-  const { items } = useOutboxSnapshot();
-  const waiting = readingItemsOf(items, orderId, 'contactor', contactor.id);
-  const latestWaiting = waiting.at(-1);
-  const latestStored = readings.at(-1);
-  const defaults = useMemo(
-    () => formFrom((latestWaiting?.payload.kind === 'reading' ? latestWaiting.payload.input : latestStored?.input) as Record<string, unknown> | undefined),
-    // The form starts from what was recorded when the card first draws.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [],
-  );
-  const { control, register, handleSubmit, setError, reset, formState } = useForm<ContactorForm>({ defaultValues: defaults });
+  const { form: methods, latestWaiting, latestStored, recorded, submitWith } = useComponentReading({
+    orderId,
+    target: 'contactor',
+    targetId: contactor.id,
+    readings,
+    label: `Step ${stepNumber} contactor`,
+    formFrom,
+    fieldOf,
+  });
+  const { control, register, formState } = methods;
   const form = useWatch({ control }) as ContactorForm;
   const live = liveContactorResult(parseDecimal(form.counter), contactor);
-  const recorded = Boolean(latestWaiting || latestStored);
   const errors = formState.errors;
 
-  const onSubmit = handleSubmit(async (values) => {
-    const counter = parseDecimal(values.counter);
-    const resistors = values.resistors.map(parseDecimal).filter((v) => v !== undefined);
-    const issues = await recordReading(
-      orderId,
-      `Step ${stepNumber} contactor`,
-      {
-        idempotencyKey: newIdempotencyKey(),
-        recordedAt: new Date().toISOString(),
-        target: 'contactor',
-        targetId: contactor.id,
-        // An empty counter goes to the contract as NaN, so its own message says what is missing.
-        operationsCounter: counter ?? Number.NaN,
-        contactCondition: values.condition as Condition,
-        prechargeResistorsOhm: resistors,
-        notes: values.notes.trim(),
-      },
-      waiting,
-    );
-    if (issues) {
-      for (const issue of issues) setError(fieldOf(issue.path), { message: issue.message });
-      return;
-    }
-    reset(values);
-  });
+  const onSubmit = submitWith((values, stamp) => ({
+    ...stamp,
+    target: 'contactor',
+    targetId: contactor.id,
+    // An empty counter goes to the contract as NaN, so its own message says what is missing.
+    operationsCounter: parseDecimal(values.counter) ?? Number.NaN,
+    contactCondition: values.condition as Condition,
+    prechargeResistorsOhm: values.resistors.map(parseDecimal).filter((v) => v !== undefined),
+    notes: values.notes.trim(),
+  }));
 
   return (
     <ComponentCard

@@ -1,12 +1,8 @@
 import type { Reading, WalkthroughBank } from '@varden/schemas';
-import { useMemo } from 'react';
-import { Controller, useForm, useWatch, type Path } from 'react-hook-form';
+import { Controller, useWatch, type Path } from 'react-hook-form';
 import { Button } from '../../../components/button';
-import { newIdempotencyKey } from '../outbox/answer-outcome';
-import { readingItemsOf } from '../outbox/outbox-queries';
-import { recordReading } from '../outbox/record-reading';
-import { useOutboxSnapshot } from '../outbox/use-field-outbox';
 import { blownFuses } from '../readings/live-component-results';
+import { useComponentReading } from '../readings/use-component-reading';
 import { ComponentCard } from './component-card';
 import { ChoiceGroup, NotesField } from './field-controls';
 import { OutboxItemStatus } from './outbox-item-status';
@@ -32,7 +28,7 @@ function formFrom(input: Record<string, unknown> | undefined): FuseForm {
   return { fuse1: yesNo(continuity[0]), fuse2: yesNo(continuity[1]), fuse3: yesNo(continuity[2]), rating: yesNo(input?.ratingMatchesRegister), notes: typeof input?.notes === 'string' ? input.notes : '' };
 }
 
-const fieldOf = (path: PropertyKey[]): Path<FuseForm> | 'root' => {
+const fieldOf = ({ path }: { path: PropertyKey[] }): Path<FuseForm> | 'root' => {
   const [head, index] = path.map(String);
   if (head === 'continuity') return index === '1' ? 'fuse2' : index === '2' ? 'fuse3' : 'fuse1';
   if (head === 'ratingMatchesRegister') return 'rating';
@@ -44,43 +40,29 @@ const asBoolean = (v: YesNo) => (v === undefined ? undefined : v === 'yes') as b
 
 /** A step's fuse set: continuity of each of the three fuses, and whether their rating matches the register. */
 export function FuseSetCard({ orderId, stepNumber, fuseSet, readings, editable }: { orderId: number; stepNumber: number; fuseSet: FuseSet; readings: readonly Reading[]; editable: boolean }) {
-  const { items } = useOutboxSnapshot();
-  const waiting = readingItemsOf(items, orderId, 'fuse-set', fuseSet.id);
-  const latestWaiting = waiting.at(-1);
-  const latestStored = readings.at(-1);
-  const defaults = useMemo(
-    () => formFrom((latestWaiting?.payload.kind === 'reading' ? latestWaiting.payload.input : latestStored?.input) as Record<string, unknown> | undefined),
-    // The form starts from what was recorded when the card first draws.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [],
-  );
-  const { control, register, handleSubmit, setError, reset, formState } = useForm<FuseForm>({ defaultValues: defaults });
+  const { form: methods, latestWaiting, latestStored, recorded, submitWith } = useComponentReading({
+    orderId,
+    target: 'fuse-set',
+    targetId: fuseSet.id,
+    readings,
+    label: `Step ${stepNumber} fuses`,
+    formFrom,
+    fieldOf,
+    messageOf: (issue) => (issue.path.length ? 'Choose one' : issue.message),
+  });
+  const { control, register, formState } = methods;
   const form = useWatch({ control }) as FuseForm;
   const blown = form.fuse1 && form.fuse2 && form.fuse3 ? blownFuses([form.fuse1 === 'yes', form.fuse2 === 'yes', form.fuse3 === 'yes']) : [];
-  const recorded = Boolean(latestWaiting || latestStored);
   const errors = formState.errors;
 
-  const onSubmit = handleSubmit(async (values) => {
-    const issues = await recordReading(
-      orderId,
-      `Step ${stepNumber} fuses`,
-      {
-        idempotencyKey: newIdempotencyKey(),
-        recordedAt: new Date().toISOString(),
-        target: 'fuse-set',
-        targetId: fuseSet.id,
-        continuity: [asBoolean(values.fuse1), asBoolean(values.fuse2), asBoolean(values.fuse3)],
-        ratingMatchesRegister: asBoolean(values.rating),
-        notes: values.notes.trim(),
-      },
-      waiting,
-    );
-    if (issues) {
-      for (const issue of issues) setError(fieldOf(issue.path), { message: issue.path.length ? 'Choose one' : issue.message });
-      return;
-    }
-    reset(values);
-  });
+  const onSubmit = submitWith((values, stamp) => ({
+    ...stamp,
+    target: 'fuse-set',
+    targetId: fuseSet.id,
+    continuity: [asBoolean(values.fuse1), asBoolean(values.fuse2), asBoolean(values.fuse3)],
+    ratingMatchesRegister: asBoolean(values.rating),
+    notes: values.notes.trim(),
+  }));
 
   return (
     <ComponentCard

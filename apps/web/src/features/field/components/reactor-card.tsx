@@ -1,13 +1,9 @@
 import type { Reading, WalkthroughBank } from '@varden/schemas';
-import { useMemo } from 'react';
-import { Controller, useForm, useWatch, type Path } from 'react-hook-form';
+import { Controller, useWatch, type Path } from 'react-hook-form';
 import { Button } from '../../../components/button';
-import { newIdempotencyKey } from '../outbox/answer-outcome';
-import { readingItemsOf } from '../outbox/outbox-queries';
-import { recordReading } from '../outbox/record-reading';
-import { useOutboxSnapshot } from '../outbox/use-field-outbox';
 import { parseDecimal } from '../readings/decimal';
 import { liveReactorResult, reactorTolerancePct } from '../readings/live-component-results';
+import { useComponentReading } from '../readings/use-component-reading';
 import { ComponentCard } from './component-card';
 import { ChoiceGroup, DecimalField, NotesField } from './field-controls';
 import { OutboxItemStatus } from './outbox-item-status';
@@ -34,7 +30,7 @@ function formFrom(input: Record<string, unknown> | undefined): ReactorForm {
   };
 }
 
-const fieldOf = (path: PropertyKey[]): Path<ReactorForm> | 'root' => {
+const fieldOf = ({ path }: { path: PropertyKey[] }): Path<ReactorForm> | 'root' => {
   const [head, index] = path.map(String);
   if (head === 'thermalSwitchClosed') return 'thermalSwitch';
   if (head === 'inductanceMH') return `inductance.${(Number(index) || 0) as 0 | 1 | 2}`;
@@ -45,47 +41,33 @@ const fieldOf = (path: PropertyKey[]): Path<ReactorForm> | 'root' => {
 
 /** A detuned step's reactor: thermal switch, optional inductance per phase against the register, temperature. */
 export function ReactorCard({ orderId, stepNumber, reactor, readings, editable }: { orderId: number; stepNumber: number; reactor: Reactor; readings: readonly Reading[]; editable: boolean }) {
-  const { items } = useOutboxSnapshot();
-  const waiting = readingItemsOf(items, orderId, 'reactor', reactor.id);
-  const latestWaiting = waiting.at(-1);
-  const latestStored = readings.at(-1);
-  const defaults = useMemo(
-    () => formFrom((latestWaiting?.payload.kind === 'reading' ? latestWaiting.payload.input : latestStored?.input) as Record<string, unknown> | undefined),
-    // The form starts from what was recorded when the card first draws.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-    [],
-  );
-  const { control, register, handleSubmit, setError, reset, formState } = useForm<ReactorForm>({ defaultValues: defaults });
+  const { form: methods, latestWaiting, latestStored, recorded, submitWith } = useComponentReading({
+    orderId,
+    target: 'reactor',
+    targetId: reactor.id,
+    readings,
+    label: `Step ${stepNumber} reactor`,
+    formFrom,
+    fieldOf,
+  });
+  const { control, register, formState } = methods;
   const form = useWatch({ control }) as ReactorForm;
   const live = liveReactorResult(form.inductance.map(parseDecimal), reactor.inductanceMH);
-  const recorded = Boolean(latestWaiting || latestStored);
   const errors = formState.errors;
 
-  const onSubmit = handleSubmit(async (values) => {
+  const onSubmit = submitWith((values, stamp) => {
     const inductance = values.inductance.map(parseDecimal);
-    const anyInductance = inductance.some((v) => v !== undefined);
     const temperature = parseDecimal(values.temperature);
-    const issues = await recordReading(
-      orderId,
-      `Step ${stepNumber} reactor`,
-      {
-        idempotencyKey: newIdempotencyKey(),
-        recordedAt: new Date().toISOString(),
-        target: 'reactor',
-        targetId: reactor.id,
-        // Undefined goes to the contract as is, so its own message asks for the thermal switch.
-        thermalSwitchClosed: (values.thermalSwitch === undefined ? undefined : values.thermalSwitch === 'closed') as boolean,
-        ...(anyInductance ? { inductanceMH: inductance.map((v) => v ?? Number.NaN) as [number, number, number] } : {}),
-        ...(temperature !== undefined ? { temperatureC: temperature } : {}),
-        notes: values.notes.trim(),
-      },
-      waiting,
-    );
-    if (issues) {
-      for (const issue of issues) setError(fieldOf(issue.path), { message: issue.message });
-      return;
-    }
-    reset(values);
+    return {
+      ...stamp,
+      target: 'reactor',
+      targetId: reactor.id,
+      // Undefined goes to the contract as is, so its own message asks for the thermal switch.
+      thermalSwitchClosed: (values.thermalSwitch === undefined ? undefined : values.thermalSwitch === 'closed') as boolean,
+      ...(inductance.some((v) => v !== undefined) ? { inductanceMH: inductance.map((v) => v ?? Number.NaN) as [number, number, number] } : {}),
+      ...(temperature !== undefined ? { temperatureC: temperature } : {}),
+      notes: values.notes.trim(),
+    };
   });
 
   return (
