@@ -147,6 +147,30 @@ describe('a photo from the phone', () => {
     expect(row!.thumbnailKey).toMatch(new RegExp(`^photos/${orderId}/[0-9a-f-]{36}-thumbnail\\.webp$`));
   });
 
+  test.each([
+    '..\\..\\windows\\system32\\config.jpg',
+    '/etc/shadow.jpg',
+    '%2e%2e%2f%2e%2e%2fphotos%2f1%2fx-display.webp',
+    `photos/${'../'.repeat(40)}x.jpg`,
+  ])('a traversal name %j never reaches the store: only keys of this order, made by the server', async (name) => {
+    const { orderId } = await onSiteOrder();
+    const res = await upload(app, orderId, { file: phoneJpeg, name });
+    expect(res.status).toBe(201);
+    expect(JSON.stringify(res.body)).not.toContain(name);
+    const listed = await s3.send(new ListObjectsV2Command({ Bucket: app.ctx.config.S3_BUCKET, Prefix: `photos/${orderId}/` }));
+    const keys = (listed.Contents ?? []).map((o) => o.Key!);
+    expect(keys).toHaveLength(2);
+    for (const stored of keys) expect(stored).toMatch(new RegExp(`^photos/${orderId}/[0-9a-f-]{36}-(display|thumbnail)\\.webp$`));
+  });
+
+  test('a file name with a NUL byte is refused with 400 and nothing stored', async () => {
+    const { orderId } = await onSiteOrder();
+    const res = await upload(app, orderId, { file: phoneJpeg, name: 'photo.jpg\u0000.svg' });
+    expect({ status: res.status, code: res.body.error?.code }).toEqual({ status: 400, code: 'invalid' });
+    expect(typeof res.body.error.message).toBe('string');
+    expect(await storedFor(orderId)).toEqual({ rows: 0, objects: 0 });
+  });
+
   test('an AVIF (HEIF container) photo is accepted', async () => {
     const { orderId } = await onSiteOrder();
     const avif = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#208040' } }).avif().toBuffer();
