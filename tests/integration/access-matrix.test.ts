@@ -83,3 +83,27 @@ describe('route × role matrix', () => {
     }
   });
 });
+
+// The bench's baseline route exists only with BENCH_ROUTES=true (npm run bench). The matrix above
+// walks the app as it runs in production, without it; here it is walked on its own.
+describe('the bench baseline route', () => {
+  test('is not mounted by default', () => {
+    expect(apiRoutes.filter((r) => r.path.startsWith('/api/bench'))).toEqual([]);
+  });
+
+  test('with BENCH_ROUTES on, it declares signed-in and answers only signed-in users', async () => {
+    const bench = await startTestApp({ BENCH_ROUTES: 'true' });
+    try {
+      const added = routeTable(createApp(bench.ctx)).filter((r) => r.path.startsWith('/api/bench'));
+      expect(added.map((r) => ({ method: r.method, path: r.path, permission: r.permission }))).toEqual([
+        { method: 'GET', path: '/api/bench/baseline', permission: 'signed-in' },
+      ]);
+      expect((await bench.request('/api/bench/baseline')).status).toBe(401);
+      const res = await bench.request('/api/bench/baseline', { cookie: await sessionCookieFor(bench.ctx, userIds.get('viewer')!) });
+      expect(res.status).toBe(200);
+      expect(await res.json()).toEqual({ ok: true });
+    } finally {
+      await bench.close();
+    }
+  });
+});

@@ -19,6 +19,7 @@ import { planRoutes } from './modules/plans/routes';
 import { flagRoutes } from './modules/flags/routes';
 import { readingRoutes } from './modules/readings/routes';
 import { photoRoutes } from './modules/photos/routes';
+import { benchRoutes } from './modules/bench/routes';
 
 export const jsonBodyLimitBytes = 1024 * 1024;
 
@@ -83,6 +84,7 @@ export function createApp(ctx: AppContext): express.Express {
   api.use(flagRoutes(ctx));
   api.use(readingRoutes(ctx));
   api.use(photoRoutes(ctx));
+  if (ctx.config.BENCH_ROUTES) api.use(benchRoutes(ctx));
   api.use(notFoundHandler);
   app.use('/api', api);
 

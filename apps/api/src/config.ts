@@ -24,6 +24,8 @@ const configSchema = z.object({
   WEB_DIST_DIR: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   JOBS_ENABLED: bool.default(true),
+  /** Mounts GET /api/bench/baseline (SELECT 1 behind the usual middleware) for npm run bench; off in production. */
+  BENCH_ROUTES: bool.default(false),
   DEMO_PASSWORD: z.string().min(12).default('switchroom-demo-2026'),
   /**
    * Session lifetimes. The defaults follow NIST SP 800-63B's reauthentication limits for
