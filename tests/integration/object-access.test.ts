@@ -34,9 +34,12 @@ beforeAll(async () => {
     createUser(app.ctx, { roles: ['viewer'], siteIds: [own.siteId] }),
   ]);
   technicianId = tech.user.id;
-  [technician, otherTechnician, planner, viewer] = await Promise.all(
-    [tech, tech2, plan, view].map((u) => sessionCookieFor(app.ctx, u.user.id)),
-  );
+  [technician, otherTechnician, planner, viewer] = await Promise.all([
+    sessionCookieFor(app.ctx, tech.user.id),
+    sessionCookieFor(app.ctx, tech2.user.id),
+    sessionCookieFor(app.ctx, plan.user.id),
+    sessionCookieFor(app.ctx, view.user.id),
+  ]);
   ownOrder = await createWorkOrder(app.ctx, { bank: own, state: 'on-site', assigneeId: technicianId });
   otherOrder = await createWorkOrder(app.ctx, { bank: other, state: 'on-site', assigneeId: technicianId });
   const reading = await app.request(`/api/work-orders/${otherOrder}/readings`, {
