@@ -4,7 +4,7 @@
 // same functions the readings service calls (packages/engineering underneath), the flags they
 // raise and each unit's latest evaluation. Ids are assigned here, so rows can point at each
 // other without reading anything back.
-import { ENGINEERING_VERSION, ratedLegUF, reactorInductanceMH } from '@varden/engineering';
+import { ENGINEERING_VERSION, projectDrift, ratedLegUF, reactorInductanceMH } from '@varden/engineering';
 import type { WorkOrderState } from '@varden/schemas';
 import { sql } from 'drizzle-orm';
 import type { MySqlTable } from 'drizzle-orm/mysql-core';
@@ -31,6 +31,7 @@ import {
 import { evaluateCapacitorReading } from '../../apps/api/src/modules/readings/evaluate-capacitor';
 import { evaluateBankReading, evaluateContactorReading, evaluateFuseReading } from '../../apps/api/src/modules/readings/evaluate-components';
 import type { FlagDraft, InputFor, Outcome } from '../../apps/api/src/modules/readings/evaluation-types';
+import { driftWindowMs, replaceBelowPct } from '../../apps/api/src/modules/readings/readings.repository';
 import { hashPassword } from '../../apps/api/src/security/password-hashing';
 import { BulkSink } from './bulk-sink';
 
@@ -126,7 +127,8 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
   const transitionRows: Array<typeof workOrderTransitions.$inferInsert> = [];
   const readingRows: Array<typeof readings.$inferInsert> = [];
   const flagRows: Array<typeof flags.$inferInsert> = [];
-  const latestRows = new Map<number, typeof unitLatestEvaluations.$inferInsert>();
+  const latestRows = new Map<number, typeof unitLatestEvaluations.$inferInsert & { recordedAt: Date }>();
+  const unitPoints = new Map<number, Array<{ at: Date; deviationPct: number }>>();
   const openOrders: GeneratedFleet['openOrders'] = [];
   const sealedOrderIds: number[] = [];
 
@@ -151,8 +153,15 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
     handOver(workOrderTransitions, transitionRows);
     handOver(readings, readingRows);
     handOver(flags, flagRows);
-    sink.addAll(unitLatestEvaluations, [...latestRows.values()]);
+    // The drift the readings service stores beside each latest evaluation (refreshUnitDrift).
+    for (const latest of latestRows.values()) {
+      const from = latest.recordedAt.getTime() - driftWindowMs;
+      const points = (unitPoints.get(latest.unitId) ?? []).filter((p) => p.at.getTime() >= from && p.at <= latest.recordedAt);
+      const drift = points.length < 2 ? null : projectDrift({ points: points.map((p) => ({ date: p.at.toISOString(), deviationPct: p.deviationPct })), replaceBelowPct });
+      sink.add(unitLatestEvaluations, { ...latest, driftRatePctPerYear: drift?.ratePctPerYear ?? null, replaceBy: drift?.replaceBy?.slice(0, 10) ?? null });
+    }
     latestRows.clear();
+    unitPoints.clear();
   };
 
   let readingId = 0;
@@ -206,7 +215,10 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
     });
     const row = readingRows[readingRows.length - 1]!;
     row.input = { ...input, idempotencyKey: row.idempotencyKey };
-    if (outcome.unitResult) latestRows.set(input.targetId, { unitId: input.targetId, readingId: id, recordedAt, ...outcome.unitResult });
+    if (outcome.unitResult) {
+      latestRows.set(input.targetId, { unitId: input.targetId, readingId: id, recordedAt, ...outcome.unitResult });
+      unitPoints.set(input.targetId, [...(unitPoints.get(input.targetId) ?? []), { at: recordedAt, deviationPct: outcome.unitResult.deviationPct }]);
+    }
     return id;
   }
 

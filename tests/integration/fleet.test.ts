@@ -74,7 +74,19 @@ describe('GET /api/fleet', () => {
     ] as const;
     let last = 0;
     for (const [at, dev] of history) last = await addReading(risky.orderId, risky.unitIds[0]!, at, dev, dev < -5 ? 'watch' : 'healthy');
-    await db.insert(unitLatestEvaluations).values({ unitId: risky.unitIds[0]!, readingId: last, band: 'watch', deviationPct: -8.9, kvarAtRated: 22.8, legsUF: [151, 151, 151], recordedAt: new Date(history[2][0]) });
+    // The drift the readings service fits and stores beside the latest evaluation (refreshUnitDrift).
+    const expected = projectDrift({ points: history.map(([date, deviationPct]) => ({ date, deviationPct })), replaceBelowPct: -10 });
+    await db.insert(unitLatestEvaluations).values({
+      unitId: risky.unitIds[0]!,
+      readingId: last,
+      band: 'watch',
+      deviationPct: -8.9,
+      kvarAtRated: 22.8,
+      legsUF: [151, 151, 151],
+      recordedAt: new Date(history[2][0]),
+      driftRatePctPerYear: expected.ratePctPerYear,
+      replaceBy: expected.replaceBy,
+    });
     const failed = await addReading(risky.orderId, risky.unitIds[1]!, '2026-11-20T00:00:00Z', -33, 'replace');
     await db.insert(unitLatestEvaluations).values({ unitId: risky.unitIds[1]!, readingId: failed, band: 'replace', deviationPct: -33, kvarAtRated: 16.7, legsUF: [165, 165, 2] , recordedAt: new Date('2026-11-20T00:00:00Z') });
     await db.insert(flags).values({ kind: 'replace', severity: 'action', siteId: risky.siteId, bankId: risky.bankId, target: 'capacitor-unit', targetId: risky.unitIds[1]!, message: 'Leg 3-1 reads near zero', raisedAt: new Date() });
@@ -92,7 +104,6 @@ describe('GET /api/fleet', () => {
     expect(ours[1]).toMatchObject({ risk: 0, bands: { noReading: 1 } });
 
     const projection = fleet.projectedReplacements.find((p: { unitId: number }) => p.unitId === risky.unitIds[0]);
-    const expected = projectDrift({ points: history.map(([date, deviationPct]) => ({ date, deviationPct })), replaceBelowPct: -10 });
     expect(projection).toMatchObject({ unitId: risky.unitIds[0], siteId: risky.siteId, bankId: risky.bankId, stepId: risky.stepId, stepNumber: 1, position: 1 });
     expect(projection.ratePctPerYear).toBeCloseTo(expected.ratePctPerYear, 9);
     expect(projection.replaceBy).toBe(expected.replaceBy!.slice(0, 10));

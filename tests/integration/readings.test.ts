@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { assessCapacitor, ENGINEERING_VERSION, maxDischargeResistanceOhm } from '@varden/engineering';
+import { assessCapacitor, ENGINEERING_VERSION, maxDischargeResistanceOhm, projectDrift } from '@varden/engineering';
 import { and, count, eq } from 'drizzle-orm';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
@@ -568,4 +568,36 @@ describe('latest evaluation and history', () => {
     expect((await app.request(`/api/work-orders/${orderId}/readings`, { cookie: ownCookie })).status).toBe(200);
     expect((await app.request(`/api/work-orders/${orderId}/readings`, { cookie: otherCookie })).status).toBe(404);
   });
+  test("the unit's drift over five years is fitted and stored beside its latest evaluation, whatever order the readings arrive in", async () => {
+    const { orderId, unitIds } = await onSiteOrder();
+    const unitId = unitIds[0]!;
+    const daysAgo = (days: number) => new Date(Date.now() - days * 86_400_000).toISOString();
+    const legs = (k: number) => [k, k, k].map((x) => x * C_DELTA_50KVAR_400V);
+    const latestRow = async () => (await app.ctx.db.select().from(unitLatestEvaluations).where(eq(unitLatestEvaluations.unitId, unitId)))[0]!;
+    // A reading from eight years ago lies outside the window; one reading alone fits no line.
+    await record(orderId, unitReading(unitId, { method: 'per-element', elementsUF: legs(1.01), recordedAt: daysAgo(8 * 365) }));
+    await record(orderId, unitReading(unitId, { method: 'per-element', elementsUF: legs(0.97), recordedAt: daysAgo(730) }));
+    expect(await latestRow()).toMatchObject({ driftRatePctPerYear: null, replaceBy: null });
+    await record(orderId, unitReading(unitId, { method: 'per-element', elementsUF: legs(0.92), recordedAt: daysAgo(1) }));
+    // Late from a phone without signal: older than the latest, still part of the fit.
+    await record(orderId, unitReading(unitId, { method: 'per-element', elementsUF: legs(0.95), recordedAt: daysAgo(365) }));
+    const points = [
+      { date: daysAgo(730), deviationPct: -3 },
+      { date: daysAgo(365), deviationPct: -5 },
+      { date: daysAgo(1), deviationPct: -8 },
+    ];
+    const stored = await readingsOfUnit(unitId);
+    const expected = projectDrift({ points: stored.filter((r) => r.recordedAt.getTime() > Date.now() - 5 * 365.25 * 86_400_000).map((r) => ({ date: r.recordedAt.toISOString(), deviationPct: r.deviationPct! })), replaceBelowPct: -10 });
+    expect(expected.ratePctPerYear).toBeCloseTo(projectDrift({ points, replaceBelowPct: -10 }).ratePctPerYear, 1);
+    const latest = await latestRow();
+    expect(latest.driftRatePctPerYear).toBeCloseTo(expected.ratePctPerYear, 9);
+    expect(latest.replaceBy).toBe(expected.replaceBy!.slice(0, 10));
+  });
 });
+
+async function readingsOfUnit(unitId: number) {
+  return app.ctx.db
+    .select({ recordedAt: readings.recordedAt, deviationPct: readings.deviationPct })
+    .from(readings)
+    .where(and(eq(readings.target, 'capacitor-unit'), eq(readings.targetId, unitId)));
+}

@@ -86,6 +86,8 @@ export const workOrders = mysqlTable(
     index('work_orders_state_due').on(t.state, t.dueOn),
     index('work_orders_assignee_due').on(t.assigneeId, t.dueOn),
     index('work_orders_site_due').on(t.siteId, t.dueOn),
+    // A site's list filtered by state, and its count, read only the rows they answer with.
+    index('work_orders_site_state_due').on(t.siteId, t.state, t.dueOn),
     index('work_orders_bank').on(t.bankId),
   ],
 );
@@ -152,7 +154,14 @@ export const unitLatestEvaluations = mysqlTable('unit_latest_evaluations', {
   kvarAtRated: double('kvar_at_rated').notNull(),
   legsUF: json('legs_uf').$type<number[]>().notNull(),
   recordedAt: at('recorded_at').notNull(),
-});
+  /**
+   * The unit's drift fitted when this reading was stored (projectDrift over the readings of the
+   * five years before it), so the fleet's projected replacements never read the history. Null
+   * when fewer than two dates are known or the unit is not losing capacitance.
+   */
+  driftRatePctPerYear: double('drift_rate_pct_per_year'),
+  replaceBy: date('replace_by', { mode: 'string' }),
+}, (t) => [index('unit_latest_evaluations_replace_by').on(t.replaceBy)]);
 
 export const flagKinds = [
   'replace',

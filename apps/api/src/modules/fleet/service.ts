@@ -1,13 +1,11 @@
-import { projectDrift } from '@varden/engineering';
 import type { FleetOverview } from '@varden/schemas';
-import { and, asc, count, eq, inArray, isNotNull, isNull, lt, notInArray, sql } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, isNull, lt, lte, notInArray } from 'drizzle-orm';
 import type { SiteScope } from '../../access/site-scope';
 import type { Database } from '../../db/client';
-import { banks, capacitorUnits, flags, readings, sites, steps, unitLatestEvaluations, workOrders } from '../../db/schema/index';
+import { banks, capacitorUnits, flags, sites, steps, unitLatestEvaluations, workOrders } from '../../db/schema/index';
 import { inScope } from '../register/scope-filter';
 
 const closedStates = ['sealed', 'withdrawn'] as const;
-const replaceBelowPct = -10;
 
 /** Points of risk per finding; a site's rank is their sum (common practice: replace first). */
 export const riskWeights = { replace: 10, actionFlag: 5, overdueOrder: 3, remeasure: 2, watch: 1 } as const;
@@ -31,7 +29,8 @@ export async function fleetOverview(db: Database, scope: SiteScope, today = new 
   const todayIso = isoDay(today);
 
   const unitScope = and(inArray(banks.siteId, siteIds), isNull(banks.retiredAt), isNull(steps.retiredAt), isNull(capacitorUnits.removedOn));
-  const [bandRows, flagRows, overdueRows, historyRows] = await Promise.all([
+  const horizon = isoDay(new Date(today.getTime() + 365 * 86_400_000));
+  const [bandRows, flagRows, overdueRows, projectionRows] = await Promise.all([
     db
       .select({ siteId: banks.siteId, band: unitLatestEvaluations.band, n: count() })
       .from(capacitorUnits)
@@ -56,6 +55,7 @@ export async function fleetOverview(db: Database, scope: SiteScope, today = new 
       .from(workOrders)
       .where(and(inArray(workOrders.siteId, siteIds), lt(workOrders.dueOn, todayIso), notInArray(workOrders.state, [...closedStates])))
       .orderBy(asc(workOrders.dueOn)),
+    // Each unit's drift is fitted when its reading is stored (refreshUnitDrift): one row per unit, never the history.
     db
       .select({
         unitId: capacitorUnits.id,
@@ -66,49 +66,25 @@ export async function fleetOverview(db: Database, scope: SiteScope, today = new 
         stepNumber: steps.number,
         position: capacitorUnits.position,
         serial: capacitorUnits.serial,
-        recordedAt: readings.recordedAt,
-        deviationPct: readings.deviationPct,
+        ratePctPerYear: unitLatestEvaluations.driftRatePctPerYear,
+        replaceBy: unitLatestEvaluations.replaceBy,
+        latestDeviationPct: unitLatestEvaluations.deviationPct,
       })
-      .from(readings)
-      .innerJoin(capacitorUnits, and(eq(readings.target, 'capacitor-unit'), eq(readings.targetId, capacitorUnits.id)))
+      .from(unitLatestEvaluations)
+      .innerJoin(capacitorUnits, eq(capacitorUnits.id, unitLatestEvaluations.unitId))
       .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
       .innerJoin(banks, eq(banks.id, steps.bankId))
-      .where(and(unitScope, isNotNull(readings.deviationPct), sql`${readings.recordedAt} >= ${new Date(today.getTime() - 5 * 365.25 * 86_400_000)}`))
-      .orderBy(capacitorUnits.id, readings.recordedAt),
+      .where(and(unitScope, lte(unitLatestEvaluations.replaceBy, horizon)))
+      .orderBy(asc(unitLatestEvaluations.replaceBy), asc(capacitorUnits.id)),
   ]);
 
   const siteName = new Map(siteRows.map((s) => [s.id, s.name]));
-  const horizon = isoDay(new Date(today.getTime() + 365 * 86_400_000));
-  const projected: FleetOverview['projectedReplacements'] = [];
-  let i = 0;
-  while (i < historyRows.length) {
-    const first = historyRows[i]!;
-    const points: { date: string; deviationPct: number }[] = [];
-    while (i < historyRows.length && historyRows[i]!.unitId === first.unitId) {
-      const row = historyRows[i]!;
-      points.push({ date: row.recordedAt.toISOString(), deviationPct: row.deviationPct! });
-      i++;
-    }
-    if (points.length < 2) continue;
-    const drift = projectDrift({ points, replaceBelowPct });
-    if (drift.replaceBy !== null && drift.replaceBy.slice(0, 10) <= horizon) {
-      projected.push({
-        unitId: first.unitId,
-        siteId: first.siteId,
-        siteName: siteName.get(first.siteId) ?? '',
-        bankId: first.bankId,
-        bankName: first.bankName,
-        stepId: first.stepId,
-        stepNumber: first.stepNumber,
-        position: first.position,
-        serial: first.serial,
-        ratePctPerYear: drift.ratePctPerYear,
-        replaceBy: drift.replaceBy.slice(0, 10),
-        latestDeviationPct: points[points.length - 1]!.deviationPct,
-      });
-    }
-  }
-  projected.sort((a, b) => a.replaceBy.localeCompare(b.replaceBy));
+  const projected: FleetOverview['projectedReplacements'] = projectionRows.map((row) => ({
+    ...row,
+    siteName: siteName.get(row.siteId) ?? '',
+    ratePctPerYear: row.ratePctPerYear ?? 0,
+    replaceBy: row.replaceBy!,
+  }));
 
   const totals = { ...empty };
   const items = siteRows.map((site) => {

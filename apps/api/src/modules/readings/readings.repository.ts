@@ -1,4 +1,5 @@
-import { and, asc, count, desc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
+import { projectDrift } from '@varden/engineering';
+import { and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lte, ne, sql } from 'drizzle-orm';
 import type { Executor } from '../../access/executor';
 import {
   banks,
@@ -199,6 +200,41 @@ export async function advanceUnitLatest(
     });
   // affectedRows: 1 inserted, 2 updated, 0 kept the later reading already stored.
   return (result as unknown as { affectedRows: number }).affectedRows > 0;
+}
+
+/** The window of history a unit's drift is fitted over, before its latest reading. */
+export const driftWindowMs = 5 * 365.25 * 86_400_000;
+/** The deviation below which a unit is replaced, as the fleet projects it (the policy's replace limit). */
+export const replaceBelowPct = -10;
+
+/**
+ * Fits the unit's drift over the five years up to its latest reading (projectDrift) and stores
+ * the rate and the projected replacement date beside its latest evaluation, so the fleet
+ * dashboard reads one row per unit instead of the history.
+ */
+export async function refreshUnitDrift(db: Executor, unitId: number): Promise<void> {
+  const [latest] = await db.select({ recordedAt: unitLatestEvaluations.recordedAt }).from(unitLatestEvaluations).where(eq(unitLatestEvaluations.unitId, unitId));
+  if (!latest) return;
+  const points = await db
+    .select({ recordedAt: readings.recordedAt, deviationPct: readings.deviationPct })
+    .from(readings)
+    .where(
+      and(
+        eq(readings.target, 'capacitor-unit'),
+        eq(readings.targetId, unitId),
+        gte(readings.recordedAt, new Date(latest.recordedAt.getTime() - driftWindowMs)),
+        lte(readings.recordedAt, latest.recordedAt),
+        isNotNull(readings.deviationPct),
+      ),
+    );
+  const drift =
+    points.length < 2
+      ? null
+      : projectDrift({ points: points.map((p) => ({ date: p.recordedAt.toISOString(), deviationPct: p.deviationPct! })), replaceBelowPct });
+  await db
+    .update(unitLatestEvaluations)
+    .set({ driftRatePctPerYear: drift?.ratePctPerYear ?? null, replaceBy: drift?.replaceBy?.slice(0, 10) ?? null })
+    .where(eq(unitLatestEvaluations.unitId, unitId));
 }
 
 /** Flags not yet cleared (open or in hand) on these targets, as "kind target id" keys. */

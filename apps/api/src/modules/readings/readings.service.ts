@@ -22,6 +22,7 @@ import {
   lockBank,
   lockOrder,
   readingsOfOrder,
+  refreshUnitDrift,
   siteOfUnit,
   unclearedFlagKeys,
   unitReadingPage,
@@ -87,7 +88,10 @@ export async function recordReading(
         recordedById: user.id,
         recordedAt,
       });
-      if (outcome.unitResult) await advanceUnitLatest(tx, { unitId: input.targetId, readingId, recordedAt, ...outcome.unitResult });
+      if (outcome.unitResult) {
+        await advanceUnitLatest(tx, { unitId: input.targetId, readingId, recordedAt, ...outcome.unitResult });
+        await refreshUnitDrift(tx, input.targetId);
+      }
       const newFlags: FlagRow[] = [];
       const raisedAt = new Date();
       for (const draft of drafts) {
