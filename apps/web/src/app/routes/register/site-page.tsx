@@ -63,13 +63,13 @@ const columns = [
   column.display({
     id: 'stepCount',
     header: 'Steps',
-    meta: { numeric: true },
+    meta: { align: 'end' },
     cell: ({ row }) => <span className="numeric">{row.original.stepCount}</span>,
   }),
   column.display({
     id: 'controllerTargetPf',
     header: 'Controller target',
-    meta: { numeric: true },
+    meta: { align: 'end' },
     cell: ({ row }) => <span className="numeric">{formatRatio(row.original.controllerTargetPf)}</span>,
   }),
   column.display({

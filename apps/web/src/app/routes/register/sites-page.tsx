@@ -46,31 +46,31 @@ const columns = [
   column.accessor((site): unknown => site.voltageV, {
     id: 'voltageV',
     header: 'Voltage',
-    meta: { numeric: true },
+    meta: { align: 'end' },
     cell: ({ row }) => <Quantity value={row.original.voltageV} unit="V" />,
   }),
   column.display({
     id: 'frequencyHz',
     header: 'Frequency',
-    meta: { numeric: true },
+    meta: { align: 'end' },
     cell: ({ row }) => <Quantity value={row.original.frequencyHz} unit="Hz" />,
   }),
   column.display({
     id: 'transformerKva',
     header: 'Transformer',
-    meta: { numeric: true },
+    meta: { align: 'end' },
     cell: ({ row }) => <Quantity value={row.original.transformerKva} unit="kVA" />,
   }),
   column.display({
     id: 'targetPf',
     header: 'PF target',
-    meta: { numeric: true },
+    meta: { align: 'end' },
     cell: ({ row }) => <span className="numeric">{formatRatio(row.original.targetPf)}</span>,
   }),
   column.display({
     id: 'bankCount',
     header: 'Banks',
-    meta: { numeric: true },
+    meta: { align: 'end' },
     cell: ({ row }) => <span className="numeric">{row.original.bankCount}</span>,
   }),
 ];

@@ -1,4 +1,4 @@
-import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import type { AuditEntry, AuditLog } from '@varden/schemas';
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
@@ -6,6 +6,7 @@ import { DataTable } from '../../../components/data-table';
 import { Pager } from '../../../components/pager';
 import { paths } from '../../../config/paths';
 import { formatDateTime } from '../../../lib/date-format';
+import { useServerTable } from '../../../lib/server-table';
 import type { AuditLogSearch } from '../lib/audit-log-search';
 import { describeAuditEntry, type SiteNamer } from '../lib/describe-audit-entry';
 
@@ -76,19 +77,8 @@ type AuditLogTableProps = {
 /** The audit log, newest first, a page at a time from the server. */
 export function AuditLogTable({ search, onSearchChange, log, isFetching, siteName }: AuditLogTableProps) {
   const columns = useMemo(() => columnsFor(siteName), [siteName]);
-  // The React Compiler leaves this component unmemoised; nothing here relies on memoisation.
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: log?.items ?? [],
-    columns,
-    getCoreRowModel: getCoreRowModel(),
-    getRowId: (entry) => String(entry.id),
-    manualPagination: true,
-    manualSorting: true,
-    enableSorting: false,
-    rowCount: log?.total ?? 0,
-    state: { pagination: { pageIndex: search.page - 1, pageSize: search.pageSize } },
-  });
+   
+  const table = useServerTable({ data: log?.items, total: log?.total, columns, getRowId: (entry) => String(entry.id), search });
   return (
     <>
       <DataTable

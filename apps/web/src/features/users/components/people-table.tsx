@@ -1,4 +1,4 @@
-import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState, type Updater } from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { roles, userSorts, userStatuses, type User, type UserList } from '@varden/schemas';
 import { useId, useRef, useState, type FormEvent } from 'react';
 import { Link } from 'react-router-dom';
@@ -8,7 +8,7 @@ import { Pager } from '../../../components/pager';
 import { paths } from '../../../config/paths';
 import { classNames } from '../../../lib/class-names';
 import { formatDate, formatDateTime } from '../../../lib/date-format';
-import { sortingToSort, sortToSorting } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/server-table';
 import { roleLabels, roleList } from '../../auth/lib/role-labels';
 import { peopleSearchDefaults, type PeopleSearch } from '../lib/people-search';
 import { AccountStatus, accountStatusLabels } from './account-status';
@@ -144,25 +144,15 @@ function SearchBox({ value, onSearch }: { value: string; onSearch: (q: string, r
 export function PeopleTable({ search, onSearchChange, list, isFetching }: PeopleTableProps) {
   const roleId = useId();
   const statusId = useId();
-  const sorting = sortToSorting(search.sort);
-
-  // The React Compiler leaves this component unmemoised; nothing here relies on memoisation.
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: list?.items ?? [],
+  const table = useServerTable({
+    data: list?.items,
+    total: list?.total,
     columns,
-    getCoreRowModel: getCoreRowModel(),
     getRowId: (person) => String(person.id),
-    manualPagination: true,
-    manualSorting: true,
-    enableMultiSort: false,
-    enableSortingRemoval: false,
-    rowCount: list?.total ?? 0,
-    state: { sorting, pagination: { pageIndex: search.page - 1, pageSize: search.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      onSearchChange({ ...search, sort: pick(userSorts, sortingToSort(next, peopleSearchDefaults.sort)) ?? peopleSearchDefaults.sort, page: 1 });
-    },
+    search,
+    sorts: userSorts,
+    fallbackSort: peopleSearchDefaults.sort,
+    onSort: (sort) => onSearchChange({ ...search, sort, page: 1 }),
   });
 
   return (

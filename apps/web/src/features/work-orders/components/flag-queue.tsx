@@ -1,5 +1,5 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState, type Updater } from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { flagListQuery, flagStates, type Flag, type WorkOrder } from '@varden/schemas';
 import { useId, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
@@ -10,7 +10,7 @@ import { FormAlert, FormSuccess } from '../../../components/form/form-alert';
 import { Pager } from '../../../components/pager';
 import { classNames } from '../../../lib/class-names';
 import { formatDateTime } from '../../../lib/date-format';
-import { sortingToSort, sortToSorting } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/server-table';
 import { siteQueries } from '../../register/api/site-queries';
 import { flagMutations, type FlagSearch } from '../api/flag-queries';
 import { targetLabel } from '../lib/work-order-words';
@@ -136,24 +136,15 @@ export function FlagQueue({ search, onSearchChange, list, isFetching, canOpen }:
     }),
   ];
 
-  const sorting = sortToSorting(search.sort);
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: list?.items ?? [],
+  const table = useServerTable({
+    data: list?.items,
+    total: list?.total,
     columns,
-    getCoreRowModel: getCoreRowModel(),
     getRowId: (flag) => String(flag.id),
-    manualPagination: true,
-    manualSorting: true,
-    enableMultiSort: false,
-    enableSortingRemoval: false,
-    rowCount: list?.total ?? 0,
-    state: { sorting, pagination: { pageIndex: search.page - 1, pageSize: search.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      const sort = sorts.find((s) => s === sortingToSort(next, '-raisedAt')) ?? '-raisedAt';
-      onSearchChange({ ...search, sort, page: 1 });
-    },
+    search,
+    sorts: sorts,
+    fallbackSort: '-raisedAt',
+    onSort: (sort) => onSearchChange({ ...search, sort, page: 1 }),
   });
 
   const set = (changes: Partial<FlagSearch>) => onSearchChange({ ...search, ...changes, page: 1 });

@@ -1,11 +1,11 @@
-import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState, type Updater } from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { workOrderListQuery, type WorkOrder } from '@varden/schemas';
 import { Link } from 'react-router-dom';
 import { buttonClassName } from '../../../components/button';
 import { DataTable } from '../../../components/data-table';
 import { Pager } from '../../../components/pager';
 import { formatDateTime } from '../../../lib/date-format';
-import { sortingToSort, sortToSorting } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/server-table';
 import type { WorkOrderSearch } from '../lib/work-order-search';
 import { kindLabels } from '../lib/work-order-words';
 import { paths } from '../../../config/paths';
@@ -90,23 +90,15 @@ export function ReviewQueueTable({ search, onSearchChange, list, isFetching, use
     column.accessor('dueOn', { header: 'Due', meta: { show: 'desk' }, cell: ({ row }) => <DueDate order={row.original} /> }),
     column.display({ id: 'review', header: 'Decision', meta: { show: 'desk' }, cell: ({ row }) => reviewAction(row.original) }),
   ];
-  const sorting = sortToSorting(search.sort);
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: list?.items ?? [],
+  const table = useServerTable({
+    data: list?.items,
+    total: list?.total,
     columns,
-    getCoreRowModel: getCoreRowModel(),
     getRowId: (order) => String(order.id),
-    manualPagination: true,
-    manualSorting: true,
-    enableMultiSort: false,
-    enableSortingRemoval: false,
-    rowCount: list?.total ?? 0,
-    state: { sorting, pagination: { pageIndex: search.page - 1, pageSize: search.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      onSearchChange({ ...search, sort: sorts.find((s) => s === sortingToSort(next, 'dueOn')) ?? 'dueOn', page: 1 });
-    },
+    search,
+    sorts: sorts,
+    fallbackSort: 'dueOn',
+    onSort: (sort) => onSearchChange({ ...search, sort, page: 1 }),
   });
   return (
     <div className="grid gap-3">

@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState, type Updater } from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { workOrderKinds, workOrderListQuery, workOrderStates, type WorkOrder } from '@varden/schemas';
 import { useId, useRef, useState, type FormEvent, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
@@ -7,7 +7,7 @@ import { DataTable } from '../../../components/data-table';
 import { controlClass } from '../../../components/form/field-parts';
 import { Pager } from '../../../components/pager';
 import { classNames } from '../../../lib/class-names';
-import { sortingToSort, sortToSorting } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/server-table';
 import { siteQueries } from '../../register/api/site-queries';
 import { technicians } from '../api/technician-queries';
 import { formatCalendarDate } from '../lib/calendar-date';
@@ -18,9 +18,7 @@ import { OverdueMark, StateMark } from './state-mark';
 
 const column = createColumnHelper<WorkOrder>();
 
-type Sort = WorkOrderSearch['sort'];
 const sorts = workOrderListQuery.shape.sort.unwrap().options;
-const pickSort = (value: string): Sort | undefined => sorts.find((s) => s === value);
 
 export function DueDate({ order }: { order: Pick<WorkOrder, 'dueOn' | 'overdue'> }) {
   return (
@@ -241,24 +239,15 @@ function WorkOrderFilters({ search, onSearchChange, canPickTechnician, canFilter
 
 /** The work-order table: filters, sorting and pages on the server, all in the URL. */
 export function WorkOrderTable({ search, onSearchChange, list, isFetching, canPickTechnician, canFilterMine }: WorkOrderTableProps) {
-  const sorting = sortToSorting(search.sort);
-  // The React Compiler leaves this component unmemoised; nothing here relies on memoisation.
-  // eslint-disable-next-line react-hooks/incompatible-library
-  const table = useReactTable({
-    data: list?.items ?? [],
+  const table = useServerTable({
+    data: list?.items,
+    total: list?.total,
     columns,
-    getCoreRowModel: getCoreRowModel(),
     getRowId: (order) => String(order.id),
-    manualPagination: true,
-    manualSorting: true,
-    enableMultiSort: false,
-    enableSortingRemoval: false,
-    rowCount: list?.total ?? 0,
-    state: { sorting, pagination: { pageIndex: search.page - 1, pageSize: search.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      onSearchChange({ ...search, sort: pickSort(sortingToSort(next, workOrderSearchDefaults.sort)) ?? workOrderSearchDefaults.sort, page: 1 });
-    },
+    search,
+    sorts: sorts,
+    fallbackSort: workOrderSearchDefaults.sort,
+    onSort: (sort) => onSearchChange({ ...search, sort, page: 1 }),
   });
 
   return (
