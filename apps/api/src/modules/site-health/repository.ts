@@ -3,38 +3,48 @@ import type { Database } from '../../db/client';
 import { banks, capacitorUnits, flags, reactors, readings, sites, steps, unitLatestEvaluations, workOrders } from '../../db/schema/index';
 
 /**
- * Everything a site's health needs, in four queries: the site, its banks and steps, the units
- * in service with their stored latest evaluation, and the reactors. Never the reading history.
+ * Everything a site's health needs, in one round of five queries at once: the site, its banks,
+ * its steps, the units in service with their stored latest evaluation (only the columns the
+ * health reads: the nameplate, the band, the legs) and the reactors. Never the reading history.
  */
 export async function loadSiteForHealth(db: Database, siteId: number) {
-  const [site] = await db.select().from(sites).where(eq(sites.id, siteId));
-  if (!site) return undefined;
-  const bankRows = await db
-    .select()
-    .from(banks)
-    .where(and(eq(banks.siteId, siteId), isNull(banks.retiredAt)))
-    .orderBy(banks.name);
-  const bankIds = bankRows.map((b) => b.id);
-  if (bankIds.length === 0) return { site, banks: [], steps: [], units: [], reactors: [] };
-  const stepRows = await db
-    .select()
-    .from(steps)
-    .where(and(inArray(steps.bankId, bankIds), isNull(steps.retiredAt)))
-    .orderBy(steps.bankId, steps.number);
-  const stepIds = stepRows.map((s) => s.id);
-  if (stepIds.length === 0) return { site, banks: bankRows, steps: [], units: [], reactors: [] };
-  const [unitRows, reactorRows] = await Promise.all([
+  const bankInService = and(eq(banks.siteId, siteId), isNull(banks.retiredAt));
+  const stepInService = and(bankInService, isNull(steps.retiredAt));
+  const [[site], bankRows, stepRows, unitRows, reactorRows] = await Promise.all([
+    db.select().from(sites).where(eq(sites.id, siteId)),
+    db.select().from(banks).where(bankInService).orderBy(banks.name),
     db
-      .select({ unit: capacitorUnits, latest: unitLatestEvaluations })
+      .select({ step: steps })
+      .from(steps)
+      .innerJoin(banks, eq(banks.id, steps.bankId))
+      .where(stepInService)
+      .orderBy(steps.bankId, steps.number),
+    db
+      .select({
+        unit: {
+          id: capacitorUnits.id,
+          stepId: capacitorUnits.stepId,
+          nameplateKvar: capacitorUnits.nameplateKvar,
+          nameplateVoltageV: capacitorUnits.nameplateVoltageV,
+          nameplateFrequencyHz: capacitorUnits.nameplateFrequencyHz,
+          connection: capacitorUnits.connection,
+        },
+        latest: { band: unitLatestEvaluations.band, legsUF: unitLatestEvaluations.legsUF, recordedAt: unitLatestEvaluations.recordedAt },
+      })
       .from(capacitorUnits)
+      .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
+      .innerJoin(banks, eq(banks.id, steps.bankId))
       .leftJoin(unitLatestEvaluations, eq(unitLatestEvaluations.unitId, capacitorUnits.id))
-      .where(and(inArray(capacitorUnits.stepId, stepIds), isNull(capacitorUnits.removedOn))),
+      .where(and(stepInService, isNull(capacitorUnits.removedOn))),
     db
-      .select()
+      .select({ reactor: reactors })
       .from(reactors)
-      .where(and(inArray(reactors.stepId, stepIds), isNull(reactors.removedOn))),
+      .innerJoin(steps, eq(steps.id, reactors.stepId))
+      .innerJoin(banks, eq(banks.id, steps.bankId))
+      .where(and(stepInService, isNull(reactors.removedOn))),
   ]);
-  return { site, banks: bankRows, steps: stepRows, units: unitRows, reactors: reactorRows };
+  if (!site) return undefined;
+  return { site, banks: bankRows, steps: stepRows.map((r) => r.step), units: unitRows, reactors: reactorRows.map((r) => r.reactor) };
 }
 
 /** The newest bank reading of the site that carries the controller's PF and the load. */
