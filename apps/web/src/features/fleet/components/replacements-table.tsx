@@ -7,6 +7,7 @@ import { FigureTable, type FigureColumn } from './figure-table';
 
 type Projected = FleetOverview['projectedReplacements'][number];
 
+const todayIso = () => new Date().toISOString().slice(0, 10);
 const signedPct = (v: number, digits: number) => `${v > 0 ? '+' : v < 0 ? '−' : ''}${formatNumber(Math.abs(v), digits)}${nbsp}%`;
 
 const columns: FigureColumn<Projected>[] = [
@@ -25,7 +26,19 @@ const columns: FigureColumn<Projected>[] = [
   { header: 'Position', align: 'end', cell: (p) => p.position },
   { header: 'Loss rate', align: 'end', cell: (p) => `${signedPct(p.ratePctPerYear, 1)} a year` },
   { header: 'Latest deviation', align: 'end', cell: (p) => signedPct(p.latestDeviationPct, 1) },
-  { header: 'Replace by', align: 'end', cell: (p) => <span className="font-semibold">{formatDate(p.replaceBy)}</span> },
+  {
+    header: 'Replace by',
+    align: 'end',
+    cell: (p) =>
+      // A fitted crossing already behind us: the unit is due now, and the date says since when.
+      p.replaceBy <= todayIso() ? (
+        <span className="whitespace-nowrap">
+          <span className="font-semibold">Now</span> <span className="text-ink-muted">(crossed {formatDate(p.replaceBy)})</span>
+        </span>
+      ) : (
+        <span className="font-semibold">{formatDate(p.replaceBy)}</span>
+      ),
+  },
 ];
 
 /** "Replacements due in 12 months": units whose drift crosses the replace threshold within a year, soonest first. */

@@ -92,6 +92,38 @@ describe('nextSteps', () => {
     ]);
   });
 
+  test('open flags the bands do not count become steps: an action flag now, one in hand leads to its order', () => {
+    const flag = { severity: 'action' as const, bankId: 20, bankName: 'Pump hall bank', target: 'contactor', targetId: 5, state: 'open' as const, correctiveOrderId: null, raisedAt: '2026-11-01T08:00:00.000Z' };
+    const health = siteHealthFixture({
+      bands: { ...noBands(), healthy: 4 },
+      targetMet: true,
+      reachedPf: 0.96,
+      missingKvar: 0,
+      banks: [undetunedBank({ resonance: [] })],
+      openFlags: [
+        { ...flag, id: 1, kind: 'contactor-endurance', message: 'Step 2 contactor has used 85.2 % of its rated 100000 operations.' },
+        { ...flag, id: 2, kind: 'blown-fuse', target: 'fuse-set', message: 'Step 3, fuse 2 without continuity.', state: 'in-hand', correctiveOrderId: 25 },
+        { ...flag, id: 3, kind: 'replace', target: 'capacitor-unit', message: 'Counted by the replace band already.' },
+      ],
+    });
+    const steps = nextSteps({ health, links });
+    expect(steps.filter((s) => s.id.startsWith('flag-'))).toEqual([
+      {
+        id: 'flag-1',
+        urgency: 'act',
+        text: 'Contactor endurance on Pump hall bank: Step 2 contactor has used 85.2 % of its rated 100000 operations',
+        link: { href: '/flags?siteId=7&kind=contactor-endurance', label: 'open the flag queue' },
+      },
+      {
+        id: 'flag-2',
+        urgency: 'plan',
+        text: 'Blown fuse on Pump hall bank: Step 3, fuse 2 without continuity; a corrective order has it in hand',
+        link: { href: '/work-orders/25', label: 'open order #25' },
+      },
+    ]);
+    expect(steps.some((s) => s.id === 'all-well')).toBe(false);
+  });
+
   test('all well: one sentence says nothing needs doing', () => {
     const health = siteHealthFixture({ bands: { ...noBands(), healthy: 4 }, targetMet: true, reachedPf: 0.96, missingKvar: 0, banks: [undetunedBank({ resonance: [] })] });
     expect(sentences({ health, links })).toEqual(['Nothing needs doing now: every unit reads healthy and the target PF is met']);

@@ -1,6 +1,6 @@
 import type { SiteHealth } from '@varden/schemas';
 import { countOf, formatNumber, nbsp, ordinal, pfText, quantityText, targetPfText } from './number-format';
-import { stateLabels } from '../../work-orders/lib/work-order-words';
+import { flagKindLabel, stateLabels } from '../../work-orders/lib/work-order-words';
 import { stepOfBank, stepsText } from './step-labels';
 
 /** How soon a next step wants doing: act (now), plan (book it), note (good to know). */
@@ -36,6 +36,8 @@ const kvar = (value: number, locale?: string) => quantityText(value, 'kvar', 1, 
 const pct = (value: number, digits: number, locale?: string) => `${formatNumber(value, digits, locale)}${nbsp}%`;
 const hz = (value: number, locale?: string) => `${formatNumber(value, 0, locale)}${nbsp}Hz`;
 const urgencyRank: Record<Urgency, number> = { act: 0, plan: 1, note: 2 };
+/** Flags whose finding the band counts (replace, watch, remeasure) or the tuning lines already state. */
+const bandOrTuningKinds = new Set(['replace', 'watch', 'remeasure', 'tuning-drift']);
 
 /** One line for reading aloud or printing: the text, then where to go. */
 export function nextStepSentence(step: NextStep): string {
@@ -113,6 +115,20 @@ export function nextSteps({ health, links, locale, formatDate = (iso) => iso.sli
         link: { href: links.bank(bank.id), label: `open ${bank.name}` },
       });
     }
+  }
+
+  // Open flags the bands and the tuning above do not already speak for: a blown fuse, a worn
+  // contactor, a hot case, unbalanced legs. Action flags want doing now, unless an order has them in hand.
+  for (const flag of health.openFlags.filter((f) => !bandOrTuningKinds.has(f.kind))) {
+    const inHand = flag.correctiveOrderId !== null;
+    steps.push({
+      id: `flag-${flag.id}`,
+      urgency: flag.severity === 'action' && !inHand ? 'act' : 'plan',
+      text: `${flagKindLabel(flag.kind)} on ${flag.bankName}: ${flag.message.replace(/\.$/, '')}${inHand ? '; a corrective order has it in hand' : ''}`,
+      link: inHand
+        ? { href: links.workOrder(flag.correctiveOrderId!), label: `open order #${flag.correctiveOrderId}` }
+        : { href: links.flagQueue(health.siteId, flag.kind), label: 'open the flag queue' },
+    });
   }
 
   if (health.reachedPf !== null && health.leading) {
