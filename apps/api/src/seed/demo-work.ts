@@ -1,6 +1,6 @@
 import { omega, openPairReadingsFromLegs, ratedLegUF, shortedReadingsFromLegs, type Triple } from '@varden/engineering';
 import type { ChecklistItem, ReadingInput, WalkthroughBank, WorkOrderKind, WorkOrderState } from '@varden/schemas';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import sharp from 'sharp';
 import type { SessionUser } from '../access/current-user';
 import type { AppContext } from '../context';
@@ -45,6 +45,8 @@ interface BankStory {
   /** Contactor operations per year, by step. */
   operationsPerYear: (step: number) => number;
   controllerPf: number;
+  /** The load the controller showed beside its PF, when the technician noted it (kW). */
+  loadKw?: number;
   voltageThdPct: number;
 }
 
@@ -114,6 +116,8 @@ const stories: BankStory[] = [
     },
     operationsPerYear: (step) => 9000 - step * 500,
     controllerPf: 0.94,
+    // The extruder line's technicians note the load beside the controller's PF.
+    loadKw: 900,
     voltageThdPct: 3.1,
   },
 ];
@@ -247,6 +251,7 @@ function readingsFor(story: BankStory, bank: WalkthroughBank, visit: Visit, comm
       idempotencyKey: key(),
       recordedAt: when(),
       controllerPf: round(story.controllerPf + 0.01 * scatter(years, 5), 2),
+      ...(story.loadKw ? { loadKw: round(story.loadKw * (1 + 0.04 * scatter(years, 11)), 0) } : {}),
       voltageThdPct: round(story.voltageThdPct + 0.3 * scatter(years, 9), 1),
       cleaningDone: true,
       filtersDone: true,
@@ -571,4 +576,7 @@ export async function seedDemoWork(ctx: AppContext): Promise<void> {
       );
     }
   }
+  // A flag is raised when its reading arrives; the seeded readings arrive all at once, so each
+  // flag takes the time its reading was taken, as it would have had on the day.
+  await ctx.db.execute(sql`update flags f join readings r on r.id = f.reading_id set f.raised_at = r.recorded_at`);
 }
