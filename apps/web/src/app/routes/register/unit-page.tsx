@@ -5,9 +5,9 @@ import { PageHeader } from '../../../components/page-header';
 import { Quantity } from '../../../components/quantity';
 import { unitQueries } from '../../../features/register/api/unit-queries';
 import { Breadcrumbs } from '../../../features/register/components/breadcrumbs';
-import { EmptyState } from '../../../features/register/components/empty-state';
 import { formatDate } from '../../../features/register/components/formats';
 import { LinkButton } from '../../../features/register/components/link-button';
+import { ConditionGlyph } from '../../../components/condition-glyph';
 import { NoReadingGlyph } from '../../../features/register/components/no-reading-glyph';
 import { PanelSection } from '../../../features/register/components/panel-section';
 import { RecordFacts } from '../../../features/register/components/record-facts';
@@ -27,6 +27,7 @@ export const clientLoader =
     await allowed(queryClient, request);
     const unit = await orNotFound(queryClient.ensureQueryData(unitQueries.detail(idParam(params, 'unitId'))));
     void queryClient.prefetchQuery(unitQueries.list({ stepId: unit.stepId, includeRemoved: true }));
+    void queryClient.prefetchQuery(unitQueries.readings(unit.id));
     await ensureStepContext(queryClient, unit.stepId);
     return null;
   };
@@ -107,6 +108,9 @@ export default function UnitPage() {
   const context = useStepContext(unit.stepId);
   const atStep = useQuery(unitQueries.list({ stepId: unit.stepId, includeRemoved: true }));
   const history = positionHistory(atStep.data?.items ?? [unit], unit);
+  const readings = useQuery(unitQueries.readings(unitId));
+  const newest = readings.data?.items[0];
+  const trend = [...(readings.data?.items ?? [])].reverse().map((r) => ({ date: r.recordedAt, deviationPct: r.deviationPct }));
   const place = `step ${context.step.number}, position ${unit.position}`;
   const title = `Capacitor unit at ${place}`;
   const successor = unit.replacedById;
@@ -148,7 +152,19 @@ export default function UnitPage() {
           <PanelSection title="Record">
             <RecordFacts
               facts={[
-                { label: 'Condition', value: <NoReadingGlyph /> },
+                {
+                  label: 'Condition',
+                  value: newest ? (
+                    <span>
+                      <ConditionGlyph band={newest.band} className="font-medium" />{' '}
+                      <span className="text-ink-muted">on {formatDate(newest.recordedAt)}</span>
+                    </span>
+                  ) : readings.isPending ? (
+                    <span className="text-ink-muted">Loading…</span>
+                  ) : (
+                    <NoReadingGlyph />
+                  ),
+                },
                 { label: 'Serial number', value: unit.serial || '—' },
                 { label: 'Maker', value: unit.maker || '—' },
                 { label: 'Model', value: unit.model || '—' },
@@ -160,15 +176,19 @@ export default function UnitPage() {
         </div>
 
         <PanelSection title="Deviation trend">
-          <DeviationTrendChart points={[]} from={unit.installedOn} />
+          <DeviationTrendChart points={trend} from={unit.installedOn} />
         </PanelSection>
 
         <PanelSection title="Reading history">
-          <ReadingHistoryTable />
+          {readings.isError ? (
+            <p role="alert">Could not load the readings: {readings.error.message}</p>
+          ) : (
+            <ReadingHistoryTable readings={readings.data?.items ?? []} />
+          )}
         </PanelSection>
 
         <PanelSection title="Photos">
-          <EmptyState title="No photos yet">Photos taken on inspections of this unit will show here.</EmptyState>
+          <p className="text-ink-muted">Photos are kept with the order they were taken on: open an order from the reading history to see them.</p>
         </PanelSection>
 
         <PositionHistoryTable history={history} current={unit} label={`${context.bank.name} ${place}`} />

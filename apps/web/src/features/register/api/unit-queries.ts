@@ -1,5 +1,5 @@
 import { mutationOptions, queryOptions, type QueryClient } from '@tanstack/react-query';
-import { listResponse, unit, type Unit, type UnitCreate, type unitReplace, type unitUpdate } from '@varden/schemas';
+import { listResponse, unit, unitReading, type Unit, type UnitCreate, type UnitReading, type unitReplace, type unitUpdate } from '@varden/schemas';
 import { z } from 'zod';
 import { apiRequest } from '../../../lib/api-client';
 import { fetchAllPages, searchOf, type Page } from './list-params';
@@ -12,6 +12,7 @@ export type UnitReplace = z.input<typeof unitReplace>;
 export type UnitScope = ({ stepId: number; bankId?: never } | { bankId: number; stepId?: never }) & { includeRemoved: boolean };
 
 const unitList = listResponse(unit);
+const unitReadingList = listResponse(unitReading);
 // The replacement's answer has no shared schema yet (reported to the lead); same shape as the service returns.
 const unitReplacement = z.object({ removed: unit, installed: unit });
 export type UnitReplacement = z.infer<typeof unitReplacement>;
@@ -30,6 +31,16 @@ export function fetchUnits(scope: UnitScope, signal?: AbortSignal): Promise<Page
       })}`,
       { parse: unitList.parse, ...(signal ? { signal } : {}) },
     ),
+  );
+}
+
+/** Every reading of a unit, newest first: its history table and the points of its trend. */
+export function fetchUnitReadings(id: number, signal?: AbortSignal): Promise<Page<UnitReading>> {
+  return fetchAllPages((page, pageSize) =>
+    apiRequest(`/api/capacitor-units/${id}/readings${searchOf({ sort: '-recordedAt', page, pageSize })}`, {
+      parse: unitReadingList.parse,
+      ...(signal ? { signal } : {}),
+    }),
   );
 }
 
@@ -64,6 +75,12 @@ export const unitQueries = {
       queryKey: [...unitQueries.details(), id] as const,
       queryFn: ({ signal }) => fetchUnit(id, signal),
       meta: { subject: 'capacitor unit' },
+    }),
+  readings: (id: number) =>
+    queryOptions({
+      queryKey: [...unitQueries.all, 'readings', id] as const,
+      queryFn: ({ signal }) => fetchUnitReadings(id, signal),
+      meta: { subject: 'readings of the capacitor unit' },
     }),
 };
 
