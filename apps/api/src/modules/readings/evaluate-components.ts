@@ -14,6 +14,9 @@ import {
   type StepRecord,
 } from './evaluation-types';
 
+/** An inductance as people write it: three decimals of a millihenry, not a float's every digit. */
+const mh = (value: number) => value.toFixed(3);
+
 /** Share of rated electrical endurance above which a contactor is flagged [COMMON] §7 (common practice). */
 export const contactorFlagAbovePct = 80;
 /** A reactor's inductance within this of the register is fine [COMMON] (common practice). */
@@ -102,17 +105,17 @@ export function evaluateReactorReading(input: InputFor<'reactor'>, ctx: { reacto
     const deviationsPct = input.inductanceMH.map((l) => (l / registerMH - 1) * 100);
     const worst = deviationsPct.reduce((w, d) => (Math.abs(d) > Math.abs(w) ? d : w), 0);
     if (Math.abs(worst) > reactorImplausiblePct) {
-      implausible.add('inductanceMH', `An inductance ${deviationWords(worst)} the register's ${registerMH} mH is more likely a unit slip (mH, µH) or another reactor.`);
+      implausible.add('inductanceMH', `An inductance ${deviationWords(worst)} the register's ${mh(registerMH)} mH is more likely a unit slip (mH, µH) or another reactor.`);
     }
     const within = Math.abs(worst) <= reactorTolerancePct + 1e-9;
     const meanMH = input.inductanceMH.reduce((s, l) => s + l, 0) / 3;
     inductance = { registerMH, measuredMH: input.inductanceMH, meanMH, deviationsPct, within, tolerancePct: reactorTolerancePct };
     if (!within) {
-      const text = `inductance ${deviationWords(worst)} the register's ${registerMH} mH (± ${reactorTolerancePct} % common practice): check the reactor for shorted turns and the register`;
+      const text = `inductance ${deviationWords(worst)} the register's ${mh(registerMH)} mH (± ${reactorTolerancePct} % common practice): check the reactor for shorted turns and the register`;
       reasons.push(text);
       notes.push(text);
     } else {
-      reasons.push(`inductance within ± ${reactorTolerancePct} % of the register's ${registerMH} mH`);
+      reasons.push(`inductance within ± ${reactorTolerancePct} % of the register's ${mh(registerMH)} mH`);
     }
   }
   if (!input.thermalSwitchClosed) {
