@@ -123,29 +123,12 @@ export async function createBankWithUnits(
   const siteId = await createSite(ctx, options.siteValues);
   const [bank] = await ctx.db.insert(banks).values({ siteId, name: unique('Bank'), location: 'Test switchroom' }).$returningId();
   const result: CreatedBank = { siteId, bankId: bank!.id, stepIds: [], unitIds: [], contactorIds: [], fuseSetIds: [] };
-  const legUF = ratedCapacitanceUF({ kvar: 50, voltageV: 400, frequencyHz: 50, connection: 'delta' });
   for (let n = 1; n <= (options.steps ?? 2); n++) {
-    const [step] = await ctx.db.insert(steps).values({ bankId: result.bankId, number: n, ratedKvar: 50 }).$returningId();
-    const [unit] = await ctx.db
-      .insert(capacitorUnits)
-      .values({
-        stepId: step!.id,
-        position: 1,
-        nameplateKvar: 50,
-        nameplateVoltageV: 400,
-        nameplateFrequencyHz: 50,
-        connection: 'delta',
-        capacitanceUF: legUF,
-        dischargeTimeS: options.dischargeTimesS?.[n - 1] ?? 180,
-        serial: unique('SN'),
-      })
-      .$returningId();
-    const [contactor] = await ctx.db.insert(contactors).values({ stepId: step!.id, ratedOperations: 100_000 }).$returningId();
-    const [fuseSet] = await ctx.db.insert(fuseSets).values({ stepId: step!.id, ratedCurrentA: 100 }).$returningId();
-    result.stepIds.push(step!.id);
-    result.unitIds.push(unit!.id);
-    result.contactorIds.push(contactor!.id);
-    result.fuseSetIds.push(fuseSet!.id);
+    const step = await insertStep(ctx, result.bankId, n, { unit: { dischargeTimeS: options.dischargeTimesS?.[n - 1] ?? 180, serial: unique('SN') } });
+    result.stepIds.push(step.stepId);
+    result.unitIds.push(...step.unitIds);
+    result.contactorIds.push(step.contactorId);
+    result.fuseSetIds.push(step.fuseSetId);
   }
   return result;
 }
@@ -234,7 +217,23 @@ export async function createStepWithUnits(
     .insert(banks)
     .values({ siteId, name: unique('Bank'), detuned, detuningFactor: options.detuningFactor ?? null })
     .$returningId();
-  const [step] = await ctx.db.insert(steps).values({ bankId: bank!.id, number: 1, ratedKvar: 50 * (options.units ?? 1) }).$returningId();
+  const step = await insertStep(ctx, bank!.id, 1, { ...options, frequencyHz: options.site?.frequencyHz ?? 50, detuningFactor: detuned && options.withReactor !== false ? options.detuningFactor : undefined });
+  return { siteId, bankId: bank!.id, ...step };
+}
+
+type StepOptions = {
+  units?: number;
+  nameplate?: { kvar?: number; voltageV?: number; frequencyHz?: number; connection?: Connection };
+  unit?: Partial<typeof capacitorUnits.$inferInsert>;
+  contactor?: Partial<typeof contactors.$inferInsert>;
+  /** With a reactor sized for this detuning factor at `frequencyHz`. */
+  detuningFactor?: number;
+  frequencyHz?: number;
+};
+
+/** One step of bank `bankId`: its capacitor units, a contactor, a fuse set and, when detuned, a reactor. */
+async function insertStep(ctx: AppContext, bankId: number, number: number, options: StepOptions): Promise<Omit<StepFixture, 'siteId' | 'bankId'>> {
+  const [step] = await ctx.db.insert(steps).values({ bankId, number, ratedKvar: 50 * (options.units ?? 1) }).$returningId();
   const nameplate = {
     kvar: options.nameplate?.kvar ?? 50,
     voltageV: options.nameplate?.voltageV ?? 400,
@@ -262,16 +261,16 @@ export async function createStepWithUnits(
   const [fuseSet] = await ctx.db.insert(fuseSets).values({ stepId: step!.id, ratedCurrentA: 100 }).$returningId();
   let reactorId: number | null = null;
   let inductanceMH: number | null = null;
-  if (detuned && options.withReactor !== false) {
+  if (options.detuningFactor !== undefined) {
     const leg = ratedLegUF(nameplate) * unitIds.length;
-    inductanceMH = reactorInductanceMH({ detuningFactor: options.detuningFactor!, legsUF: [leg, leg, leg], frequencyHz: options.site?.frequencyHz ?? 50 });
+    inductanceMH = reactorInductanceMH({ detuningFactor: options.detuningFactor, legsUF: [leg, leg, leg], frequencyHz: options.frequencyHz ?? 50 });
     const [reactor] = await ctx.db
       .insert(reactors)
-      .values({ stepId: step!.id, inductanceMH, ratedCurrentA: 80, detuningFactor: options.detuningFactor! })
+      .values({ stepId: step!.id, inductanceMH, ratedCurrentA: 80, detuningFactor: options.detuningFactor })
       .$returningId();
     reactorId = reactor!.id;
   }
-  return { siteId, bankId: bank!.id, stepId: step!.id, unitIds, contactorId: contactor!.id, reactorId, fuseSetId: fuseSet!.id, reactorInductanceMH: inductanceMH };
+  return { stepId: step!.id, unitIds, contactorId: contactor!.id, reactorId, fuseSetId: fuseSet!.id, reactorInductanceMH: inductanceMH };
 }
 
 /**
