@@ -2,7 +2,7 @@ import type { QueryClient } from '@tanstack/react-query';
 import { data, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { requirePermission } from '../../../features/auth/lib/route-guards';
 import { fieldQueries } from '../../../features/field/api/field-queries';
-import { OrderWalkthrough } from '../../../features/field/components/order-walkthrough';
+import { loadWalkForms, OrderWalkthrough, walkShownAtOnce } from '../../../features/field/components/order-walkthrough';
 import { isApiError } from '../../../lib/api-client';
 
 function orderIdOf(value: string | undefined): number {
@@ -16,12 +16,18 @@ export const clientLoader =
   async ({ request, params }: LoaderFunctionArgs) => {
     await requirePermission(queryClient, request, 'work-orders:perform');
     const id = orderIdOf(params.id);
+    // The walk's forms load beside the order's data: awaited when the walk shows at once (no
+    // placeholder that the forms would push down), otherwise ready by the time the card is read.
+    const walkForms = loadWalkForms();
+    walkForms.catch(() => undefined); // not awaited below: a failure shows when the walk is opened
+    let order;
     try {
-      await queryClient.ensureQueryData(fieldQueries.order(id));
+      order = await queryClient.ensureQueryData(fieldQueries.order(id));
     } catch (error) {
       if (isApiError(error) && error.status === 404) throw data({ message: error.message }, { status: 404 });
       throw error;
     }
+    if (walkShownAtOnce(order)) await walkForms;
     return null;
   };
 

@@ -1,6 +1,6 @@
 import { useQueryClient, useSuspenseQuery } from '@tanstack/react-query';
 import type { WorkOrderDetail } from '@varden/schemas';
-import { useCallback, useId, useState, type ReactNode } from 'react';
+import { lazy, Suspense, useCallback, useId, useState, type ReactNode } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { Button, buttonClassName } from '../../../components/button';
 import { FormAlert } from '../../../components/form/form-alert';
@@ -11,14 +11,37 @@ import { fieldQueries, sentBackReason, transitionOrder } from '../api/field-quer
 import { stateWords } from '../api/state-words';
 import { pendingMoveOf, readingItemsOf } from '../outbox/outbox-queries';
 import { fieldOutbox, useOutboxSnapshot, useWhenSent } from '../outbox/use-field-outbox';
-import { BankCard } from './bank-card';
 import { FieldGroup } from './component-card';
 import { NotesField } from './field-controls';
 import { PhotoCapture } from './photo-capture';
 import { SafetyCardPanel, type Acknowledgement } from './safety-card-panel';
 import { SyncState, useSyncSummary } from './sync-state';
+import type { BankCard as BankCardForm } from './bank-card';
+import type { WalkStep as WalkStepForm } from './walk-step';
 import { WaitingList } from './waiting-list';
-import { partsOfStep, WalkStep } from './walk-step';
+import { partsOfStep } from './step-parts';
+
+/**
+ * The walk's forms (react-hook-form, the engineering checks, every component's card) are not
+ * part of the order's first load: a technician reads the order and its safety card first, and
+ * they load while the card is read (or at once when the order is already under way).
+ */
+let walkModules: { WalkStep: typeof WalkStepForm; BankCard: typeof BankCardForm } | undefined;
+
+/** Starts loading the walk's forms; the order page's loader calls it beside the order's data. */
+export const loadWalkForms = () =>
+  Promise.all([import('./walk-step'), import('./bank-card')]).then(([{ WalkStep }, { BankCard }]) => {
+    walkModules = { WalkStep, BankCard };
+    return walkModules;
+  });
+
+// Loaded already (the loader waited for them): drawn at once. React.lazy alone would still show
+// its fallback for one frame, and the forms replacing it would push the page down (CLS 0.12).
+const LazyWalkStep = lazy(() => loadWalkForms().then((m) => ({ default: m.WalkStep })));
+const LazyBankCard = lazy(() => loadWalkForms().then((m) => ({ default: m.BankCard })));
+
+/** Whether the walk shows as soon as the order opens (the card is acknowledged), so its forms must be there first. */
+export const walkShownAtOnce = (order: WorkOrderDetail) => order.state === 'on-site' || order.state === 'awaiting-review' || order.state === 'sealed';
 
 type Part = { key: string; label: string; recorded: number; total: number };
 
@@ -113,6 +136,8 @@ export function OrderWalkthrough({ orderId }: { orderId: number }) {
     document.getElementById('walk')?.focus();
   };
   const step = order.bank.steps.find((s) => `step-${s.number}` === current);
+  const WalkStep = walkModules?.WalkStep ?? LazyWalkStep;
+  const BankCard = walkModules?.BankCard ?? LazyBankCard;
 
   return (
     <div className="relative -mx-4 -my-6 grid min-w-0 grid-cols-[minmax(0,1fr)] desk:-mx-8 desk:-my-8">
@@ -137,21 +162,23 @@ export function OrderWalkthrough({ orderId }: { orderId: number }) {
             <PartPicker parts={parts} current={current} onPick={pick} />
             <section id="walk" tabIndex={-1} aria-label={parts[currentIndex]?.label ?? 'Walk'} className="grid gap-4 focus-visible:outline-none">
               <h2 className="text-xl font-semibold">{parts[currentIndex]?.label}</h2>
-              {step && <WalkStep key={step.id} order={order} step={step} editable={editable} />}
-              {current === 'bank' && (
-                <>
-                  {order.checklist.includes('bank') && (
-                    <BankCard orderId={order.id} bank={order.bank} readings={order.readings.filter((r) => r.target === 'bank' && r.targetId === order.bank.id)} editable={editable} />
-                  )}
-                  {order.checklist.includes('photos') && (
-                    <section className="grid gap-3 rounded-md border border-line bg-surface p-4 desk:p-6" aria-label="Photos of the order">
-                      <FieldGroup legend="Photos of the whole order">
-                        <PhotoCapture orderId={order.id} subject="the order" stored={order.photos} />
-                      </FieldGroup>
-                    </section>
-                  )}
-                </>
-              )}
+              <Suspense fallback={<p className="text-ink-muted">Loading the forms…</p>}>
+                {step && <WalkStep key={step.id} order={order} step={step} editable={editable} />}
+                {current === 'bank' && (
+                  <>
+                    {order.checklist.includes('bank') && (
+                      <BankCard orderId={order.id} bank={order.bank} readings={order.readings.filter((r) => r.target === 'bank' && r.targetId === order.bank.id)} editable={editable} />
+                    )}
+                    {order.checklist.includes('photos') && (
+                      <section className="grid gap-3 rounded-md border border-line bg-surface p-4 desk:p-6" aria-label="Photos of the order">
+                        <FieldGroup legend="Photos of the whole order">
+                          <PhotoCapture orderId={order.id} subject="the order" stored={order.photos} />
+                        </FieldGroup>
+                      </section>
+                    )}
+                  </>
+                )}
+              </Suspense>
               {next && (
                 <Button className="w-full desk:w-auto" onClick={() => pick(next.key)}>
                   Go on to {next.label.toLowerCase()}

@@ -1,23 +1,11 @@
-import type { ChecklistItem, WorkOrderDetail } from '@varden/schemas';
+import type { WorkOrderDetail } from '@varden/schemas';
 import { CapacitorUnitCard } from './capacitor-unit-card';
 import { ContactorCard } from './contactor-card';
 import { FuseSetCard } from './fuse-set-card';
 import { ReactorCard } from './reactor-card';
+import { partsOfStep } from './step-parts';
 
 type Step = WorkOrderDetail['bank']['steps'][number];
-
-/** Checklist items recorded on a capacitor unit: the contract carries them on its capacitance reading. */
-export const unitItems: readonly ChecklistItem[] = ['capacitance', 'visual', 'case-temperature', 'discharge-resistor', 'insulation-resistance'];
-
-/** What the order's checklist asks for on this step: its units, contactor, reactor and fuses. */
-export function partsOfStep(step: Step, checklist: readonly ChecklistItem[]) {
-  return {
-    units: checklist.some((item) => unitItems.includes(item)) ? step.units : [],
-    contactor: checklist.includes('contactor') ? step.contactor : null,
-    reactor: checklist.includes('reactor') ? step.reactor : null,
-    fuseSet: checklist.includes('fuses') ? step.fuseSet : null,
-  };
-}
 
 /** One step of the walk: each of its components the checklist asks for, in the order they are built. */
 export function WalkStep({ order, step, editable }: { order: WorkOrderDetail; step: Step; editable: boolean }) {
