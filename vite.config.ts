@@ -14,8 +14,6 @@ export default defineConfig({
     outDir: fileURLToPath(new URL('./apps/web/dist', import.meta.url)),
     emptyOutDir: true,
     sourcemap: false,
-    // dist/.vite/manifest.json: which chunks each route loads, for the web size benchmark.
-    manifest: true,
   },
   server: {
     port: Number(process.env.WEB_DEV_PORT ?? 5173),

@@ -6,13 +6,18 @@ import { createBankWithUnits, createUser, createWorkOrder, signIn, startIsolated
 import type { TestApp } from '../support/test-app';
 
 // Fifty technicians, each signed in with their own session and working their own on-site order,
-// send capacitor readings through the HTTP API for 60 seconds. Every tenth reading is sent again
-// with the same idempotency key after its answer (a phone that lost the answer), and every
-// twenty-fifth is sent twice at once (a double tap): the server must store each reading once.
+// send capacitor readings through the HTTP API for 60 seconds. Every fifth reading is sent again
+// with the same idempotency key after its answer (a phone that lost the answer), and every eighth
+// is sent twice at once (a double tap): the server must store each reading once. The cadence is
+// short so that each technician retries and double-taps even on a busy machine. Each technician
+// starts a new reading every 2.5 s (20 readings/s offered, far above a real crew's pace), so the
+// test measures the API under a known load rather than saturating the 2 CPU cores that the rest
+// of the suite shares while it runs.
 // Afterwards the database holds exactly the acknowledged readings, each once, each evaluated.
 // A database of its own, so counting every reading in it counts only this file's.
 const technicians = 50;
 const loadMs = 60_000;
+const readingEveryMs = 2_500;
 // 50 kvar 400 V 50 Hz delta: C_Δ = 331.57 µF; balanced open pairs read 1.5·C_Δ ≈ 497.4 µF
 // (engineering-reference §1, §2(a)). Readings wander within ±4 %, all plausible.
 const openPairsUF = 1.5 * 331.57;
@@ -69,7 +74,12 @@ test('50 technicians submitting readings for 60 s: no errors, every acknowledged
 
   const work = async (who: Technician, index: number) => {
     const deadline = startedAt + loadMs;
-    for (let i = 0; Date.now() < deadline; i++) {
+    // Staggered, so the crew's readings spread over each period instead of arriving together.
+    let nextAt = startedAt + (index / technicians) * readingEveryMs;
+    for (let i = 0; ; i++) {
+      await new Promise((r) => setTimeout(r, Math.max(0, nextAt - Date.now())));
+      if (Date.now() >= deadline) break;
+      nextAt += readingEveryMs;
       const idempotencyKey = `load-${index}-${i}-${randomUUID().slice(0, 8)}`;
       const m = openPairsUF * (0.96 + Math.random() * 0.08);
       const body = {
@@ -79,7 +89,7 @@ test('50 technicians submitting readings for 60 s: no errors, every acknowledged
         method: 'open-pairs',
         readingsUF: [m, m * (1 + (Math.random() - 0.5) * 0.01), m * (1 + (Math.random() - 0.5) * 0.01)],
       };
-      if (i % 25 === 24) {
+      if (i % 8 === 3) {
         // A double tap: the same reading twice at once; one stores it, the other finds it stored.
         doubleTaps++;
         const answers = await Promise.all([send(who, body), send(who, body)]);
@@ -95,7 +105,7 @@ test('50 technicians submitting readings for 60 s: no errors, every acknowledged
       if (!first) continue;
       if (first.status !== 201) errors.push(`a new reading ${idempotencyKey} answered ${first.status}`);
       acknowledged.set(idempotencyKey, first.id);
-      if (i % 10 === 9) {
+      if (i % 5 === 1) {
         // The phone lost the answer and sends the same reading again.
         retries++;
         const again = await send(who, body);
@@ -111,6 +121,7 @@ test('50 technicians submitting readings for 60 s: no errors, every acknowledged
   const sorted = [...latenciesMs].sort((a, b) => a - b);
   const figures = {
     technicians,
+    offeredReadingsPerSecond: technicians / (readingEveryMs / 1000),
     seconds: Number(elapsedS.toFixed(1)),
     requests,
     readingsAcknowledged: acknowledged.size,
@@ -128,7 +139,7 @@ test('50 technicians submitting readings for 60 s: no errors, every acknowledged
   console.log(`field load figures ${JSON.stringify(figures)}`);
 
   expect(errors.slice(0, 10)).toEqual([]);
-  expect(acknowledged.size).toBeGreaterThan(technicians * 10);
+  expect(acknowledged.size).toBeGreaterThan(technicians * 5);
   expect(retries).toBeGreaterThan(0);
   expect(doubleTaps).toBeGreaterThan(0);
 
