@@ -1,24 +1,10 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
-import { BaseSequencer, type TestSpecification } from 'vitest/node';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 
 const repoRoot = fileURLToPath(new URL('.', import.meta.url));
 const apiPort = process.env.API_PORT ?? process.env.PORT ?? '3000';
-
-/**
- * Vitest's order, with the files that mostly wait on a clock (the 60 s field load test) first, so
- * they run beside the rest of the suite instead of after it.
- */
-class ClockBoundFirst extends BaseSequencer {
-  static readonly clockBound = ['tests/integration/field-load.test.ts'];
-  override async sort(files: TestSpecification[]): Promise<TestSpecification[]> {
-    const sorted = await super.sort(files);
-    const isClockBound = (f: TestSpecification) => ClockBoundFirst.clockBound.some((name) => f.moduleId.endsWith(name));
-    return [...sorted.filter(isClockBound), ...sorted.filter((f) => !isClockBound(f))];
-  }
-}
 
 // One file for the web build (root apps/web, output apps/web/dist) and every vitest project.
 export default defineConfig({
@@ -37,11 +23,6 @@ export default defineConfig({
     proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } },
   },
   test: {
-    // Vitest's default on this 2-core machine is one worker, so every file ran after the other.
-    // Integration files mostly wait on MariaDB, S3 and the clock: two workers overlap them, and
-    // the 60 s load test runs beside the rest instead of adding a minute to the suite.
-    maxWorkers: 2,
-    sequence: { sequencer: ClockBoundFirst },
     projects: [
       {
         root: repoRoot,
@@ -64,9 +45,22 @@ export default defineConfig({
         test: {
           name: 'integration',
           include: ['tests/integration/**/*.test.ts'],
+          exclude: ['tests/integration/field-load.test.ts'],
           environment: 'node',
           testTimeout: 30_000,
           hookTimeout: 60_000,
+        },
+      },
+      {
+        // The 60 s field load test on its own: `npm test` runs this project in a vitest process of
+        // its own beside the others, so the minute of load is not added to the suite's time.
+        root: repoRoot,
+        test: {
+          name: 'load',
+          include: ['tests/integration/field-load.test.ts'],
+          environment: 'node',
+          testTimeout: 150_000,
+          hookTimeout: 120_000,
         },
       },
       {
