@@ -77,13 +77,13 @@ async function main() {
   if (quick) {
     await step('vitest', node, [vitest, 'run', ...extra], { env });
   } else {
-    // The 60 s field load test (project "load") runs in a vitest process of its own beside the
-    // rest, so its minute overlaps the suite instead of adding to it; the other projects keep
-    // vitest's one worker on this machine.
+    // The field load and database outage tests (project "standalone", each on a database of its
+    // own) run in a vitest process of their own beside the rest, so their two minutes overlap the
+    // suite instead of adding to it; the other projects keep vitest's one worker on this machine.
     const others = ['engineering', 'schemas', 'api', 'web', 'integration', 'e2e'].flatMap((name) => ['--project', name]);
     const results = await Promise.allSettled([
       step('vitest (unit, integration, end-to-end)', node, [vitest, 'run', ...others], { env }),
-      step('vitest field load (beside the rest)', node, [vitest, 'run', '--project', 'load'], { env }),
+      step('vitest field load and database outage (beside the rest)', node, [vitest, 'run', '--project', 'standalone'], { env }),
     ]);
     const failed = results.find((r) => r.status === 'rejected');
     if (failed) throw failed.reason;
