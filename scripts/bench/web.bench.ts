@@ -195,7 +195,7 @@ async function lighthouseResults(distDir: string): Promise<BenchResult[]> {
       { name: 'fleet dashboard', slug: 'fleet', url: `${api.url}/fleet`, cookie: await signIn(api.url, supervisor.email, supervisor.password) },
     ];
     // BENCH_WEB_PAGES=field-order,fleet audits only those (while working on one page).
-    const only = process.env.BENCH_WEB_PAGES?.split(',');
+    const only = process.env.BENCH_WEB_PAGES ? process.env.BENCH_WEB_PAGES.split(',') : undefined;
     for (const page of pages.filter((p) => !only || only.includes(p.slug))) {
       // Warm-up: the API's first answers to these routes (Lighthouse clears the browser's cache itself).
       for (const warm of [page.url, `${api.url}/api/auth/me`]) await (await fetch(warm, { headers: page.cookie ? { cookie: page.cookie } : {} })).arrayBuffer();
