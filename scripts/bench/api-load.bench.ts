@@ -1,8 +1,9 @@
 // API load (issue #8 parts 1–3): generates the one-tenth and the full fleet into databases of
 // their own, then runs the production API against each in turn and loads it with autocannon,
 // 32 connections for 10 s per endpoint, signed in. Every figure is also read as a share of the
-// baseline route (SELECT 1 behind the same middleware) measured in the same round, because the
-// machine is shared and noisy. `BENCH_API_ROUNDS` (default 3) rounds per fleet; the median counts.
+// baseline route (SELECT 1 behind the same middleware), because the
+// machine is shared and noisy: the baseline runs right before each endpoint, and the ratio is
+// to that run. `BENCH_API_ROUNDS` (default 2) rounds per fleet; the median counts.
 import { randomBytes } from 'node:crypto';
 import autocannon from 'autocannon';
 import mysql from 'mysql2/promise';
@@ -14,7 +15,7 @@ import { atLeast, atMost, writeResults, type BenchResult } from './lib/result';
 
 const connections = 32;
 const durationS = Number(process.env.BENCH_API_DURATION_S ?? 10);
-const rounds = Number(process.env.BENCH_API_ROUNDS ?? 3);
+const rounds = Number(process.env.BENCH_API_ROUNDS ?? 2);
 const loadBudgetS = 120;
 const readBudget = { ratioPct: 50, p99Ms: 40 };
 const writeBudget = { ratioPct: 25, p99Ms: 60 };
@@ -127,18 +128,24 @@ async function measureFleet(label: string, url: string, fleet: GeneratedFleet) {
     const cookies = { planner: await signIn(api.url, fleet.plannerEmail, fleetPassword), technician: await signIn(api.url, fleet.technicianEmail, fleetPassword) };
     const list = endpoints(fleet);
     const samples = new Map<string, Array<Figures & { ratio: number }>>();
+    const record = (round: number, endpoint: Endpoint, figures: Figures & { failed: number }, baseline: number) => {
+      if (figures.failed > 0) log(`${label} ${endpoint.name}: ${figures.failed} requests failed or were not answered 2xx`);
+      const ratio = baseline > 0 ? (100 * figures.rps) / baseline : 0;
+      samples.set(endpoint.name, [...(samples.get(endpoint.name) ?? []), { ...figures, ratio }]);
+      failures.set(endpoint.name, (failures.get(endpoint.name) ?? 0) + figures.failed);
+      log(`${label} round ${round}: ${endpoint.name.padEnd(18)} ${figures.rps.toFixed(0).padStart(6)} req/s  p50 ${figures.p50} ms  p99 ${figures.p99} ms  ${ratio.toFixed(0)} % of baseline`);
+    };
+    const [baselineEndpoint, ...measured] = list;
+    const baselineOptions = baselineEndpoint!.options(api.url, cookies);
     for (let round = 1; round <= rounds; round++) {
-      let baseline = 0;
-      for (const endpoint of list) {
+      for (const endpoint of measured) {
+        // The baseline runs right before each endpoint: the machine's load changes within a minute.
+        await hammer(baselineOptions, 1, 8); // warm-up: JIT, buffer pool, pool connections
+        const baseline = await hammer(baselineOptions, durationS);
+        record(round, baselineEndpoint!, baseline, baseline.rps);
         const options = endpoint.options(api.url, cookies);
-        await hammer(options, 2, 8); // warm-up: JIT, buffer pool, pool connections
-        const figures = await hammer(options, durationS);
-        if (figures.failed > 0) log(`${label} ${endpoint.name}: ${figures.failed} requests failed or were not answered 2xx`);
-        if (endpoint.kind === 'baseline') baseline = figures.rps;
-        const ratio = baseline > 0 ? (100 * figures.rps) / baseline : 0;
-        samples.set(endpoint.name, [...(samples.get(endpoint.name) ?? []), { ...figures, ratio }]);
-        failures.set(endpoint.name, (failures.get(endpoint.name) ?? 0) + figures.failed);
-        log(`${label} round ${round}: ${endpoint.name.padEnd(18)} ${figures.rps.toFixed(0).padStart(6)} req/s  p50 ${figures.p50} ms  p99 ${figures.p99} ms  ${ratio.toFixed(0)} % of baseline`);
+        await hammer(options, 1, 8);
+        record(round, endpoint, await hammer(options, durationS), baseline.rps);
       }
     }
     return list.map((endpoint) => {

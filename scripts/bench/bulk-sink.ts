@@ -22,13 +22,14 @@ export class BulkSink {
   }
 
   /**
-   * Takes `parallel` connections from the pool. Foreign-key checks are off on them while the
-   * fleet loads (as a dump's restore does), so tables can be filled in any order; the generator
-   * assigns every id itself and only points at rows it made.
+   * Takes `parallel` connections from the pool. Foreign-key and unique checks are off on them
+   * while the fleet loads (as a dump's restore does), so tables can be filled in any order; the
+   * generator assigns every id and key itself and only points at rows it made. The database's
+   * triggers still run.
    */
   static async open(pool: Pool, parallel = 3): Promise<BulkSink> {
     const connections = await Promise.all(Array.from({ length: parallel }, () => pool.getConnection()));
-    for (const c of connections) await c.query('SET SESSION foreign_key_checks = 0');
+    for (const c of connections) await c.query('SET SESSION foreign_key_checks = 0, unique_checks = 0');
     return new BulkSink(connections);
   }
 
@@ -66,7 +67,7 @@ export class BulkSink {
   async close(): Promise<void> {
     await this.flush();
     for (const c of this.connections) {
-      await c.query('SET SESSION foreign_key_checks = 1');
+      await c.query('SET SESSION foreign_key_checks = 1, unique_checks = 1');
       c.release();
     }
   }

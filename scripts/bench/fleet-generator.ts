@@ -126,7 +126,7 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
   const orderRows: Array<typeof workOrders.$inferInsert> = [];
   const transitionRows: Array<typeof workOrderTransitions.$inferInsert> = [];
   const readingRows: Array<typeof readings.$inferInsert> = [];
-  const flagRows: Array<typeof flags.$inferInsert> = [];
+  const flagRows = new Map<number, typeof flags.$inferInsert>();
   const latestRows = new Map<number, typeof unitLatestEvaluations.$inferInsert & { recordedAt: Date }>();
   const unitPoints = new Map<number, Array<{ at: Date; deviationPct: number }>>();
   const openOrders: GeneratedFleet['openOrders'] = [];
@@ -150,9 +150,12 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
     handOver(reactors, reactorRows);
     handOver(inspectionPlans, planRows);
     handOver(workOrders, orderRows);
-    handOver(workOrderTransitions, transitionRows);
-    handOver(readings, readingRows);
-    handOver(flags, flagRows);
+    // The bulky rows leave memory once handed over (less garbage to collect); a bank's flags are
+    // final once its loop ends, since only later readings of the same target clear them.
+    sink.addAll(workOrderTransitions, transitionRows.splice(0));
+    sink.addAll(readings, readingRows.splice(0));
+    sink.addAll(flags, [...flagRows.values()]);
+    flagRows.clear();
     // The drift the readings service stores beside each latest evaluation (refreshUnitDrift).
     for (const latest of latestRows.values()) {
       const from = latest.recordedAt.getTime() - driftWindowMs;
@@ -188,7 +191,7 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
     // A later reading without the finding clears the earlier flag on the target (a planner would).
     for (const [k, fid] of open) {
       if (drafts.some((d) => flagKeyOf(d) === k)) continue;
-      const row = flagRows[fid - 1]!;
+      const row = flagRows.get(fid)!;
       row.state = 'cleared';
       row.clearedAt = new Date(recordedAt.getTime() + 7 * DAY);
       open.delete(k);
@@ -196,7 +199,7 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
     for (const draft of drafts) {
       if (open.has(flagKeyOf(draft))) continue;
       const fid = ++flagId;
-      flagRows.push({ id: fid, ...draft, siteId: order.siteId, bankId: order.bankId, readingId: id, state: 'open', raisedAt: recordedAt });
+      flagRows.set(fid, { id: fid, ...draft, siteId: order.siteId, bankId: order.bankId, readingId: id, state: 'open', raisedAt: recordedAt });
       open.set(flagKeyOf(draft), fid);
     }
     readingRows.push({
@@ -523,9 +526,9 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
       fuseSets: fuseRows.length,
       reactors: reactorRows.length,
       workOrders: orderRows.length,
-      transitions: transitionRows.length,
-      readings: readingRows.length,
-      flags: flagRows.length,
+      transitions: transitionId,
+      readings: readingId,
+      flags: flagId,
       latestEvaluations: unitRows.length,
       users: people.length,
     },

@@ -156,8 +156,9 @@ export const unitLatestEvaluations = mysqlTable('unit_latest_evaluations', {
   recordedAt: at('recorded_at').notNull(),
   /**
    * The unit's drift fitted when this reading was stored (projectDrift over the readings of the
-   * five years before it), so the fleet's projected replacements never read the history. Null
-   * when fewer than two dates are known or the unit is not losing capacitance.
+   * five years before it), so the fleet's projected replacements never read the history. Both
+   * null with fewer than two readings; replace_by also null when the unit is not losing
+   * capacitance.
    */
   driftRatePctPerYear: double('drift_rate_pct_per_year'),
   replaceBy: date('replace_by', { mode: 'string' }),
