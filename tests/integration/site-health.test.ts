@@ -218,10 +218,14 @@ describe('the monthly site summary mail', () => {
     await addBank(siteId, { detuningFactor: null, steps: 2, unitKvar: 25, unitVoltageV: 400 });
     const viewer = await createUser(app.ctx, { roles: ['viewer'], siteIds: [siteId] });
     const when = new Date('2031-03-01T06:45:00Z'); // a month no other test uses
+    const ofThisSite = () => app.ctx.db.select().from(outbox).where(like(outbox.kind, `site-summary:2031-03:${siteId}:%`));
     await queueMonthlySummaries(app.ctx, when);
-    const again = await queueMonthlySummaries(app.ctx, when);
-    expect(again).toBe(0);
-    const rows = await app.ctx.db.select().from(outbox).where(like(outbox.kind, `site-summary:2031-03:${siteId}:%`));
+    const rows = await ofThisSite();
+    // A second run in the same month queues nothing more for this site (other files' sites in
+    // the shared database may get their own first summary meanwhile).
+    await queueMonthlySummaries(app.ctx, when);
+    expect((await ofThisSite()).map((r) => r.id)).toEqual(rows.map((r) => r.id));
+    expect(rows.length).toBeGreaterThan(0);
     const recipients = rows.map((r) => r.toAddress);
     expect(recipients).toContain(viewer.email);
     expect(new Set(recipients).size).toBe(recipients.length);
