@@ -73,6 +73,10 @@ async function main() {
     WEB_DIST_DIR: env.WEB_DIST_DIR ?? webDistDir,
     APP_ORIGIN: env.APP_ORIGIN ?? `http://127.0.0.1:${port}`,
     LOG_LEVEL: env.LOG_LEVEL ?? 'warn',
+    // glibc keeps what libvips frees after each photo decode in one arena per thread; two arenas
+    // keep the API's peak with four 12 MP uploads at once near 330 MB instead of 400–440 MB
+    // (docs/performance.md, Photos).
+    MALLOC_ARENA_MAX: env.MALLOC_ARENA_MAX ?? '2',
   };
   const tsx = ['--import', 'tsx'];
   const seeded = await run(process.execPath, [...tsx, 'apps/api/src/cli/seed.ts'], { env: apiEnv });

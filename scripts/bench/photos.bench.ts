@@ -77,7 +77,8 @@ async function main() {
   const orderId = await createWorkOrder(ctx, { bank: step, state: 'on-site', assigneeId: tech.user.id, title: 'Bench inspection with photos' });
   await close();
 
-  const api = await startApiProcess();
+  // Started as `npm start` starts it (scripts/start.mjs): two glibc malloc arenas.
+  const api = await startApiProcess({ MALLOC_ARENA_MAX: process.env.MALLOC_ARENA_MAX ?? '2' });
   const results: BenchResult[] = [];
   try {
     const cookie = await signIn(api.url, tech.email, tech.password);
