@@ -1,5 +1,6 @@
 import { bankResonance, correctionKvar, detunedStepKvar, reactorInductanceMH, ratedCapacitanceUF } from '@varden/engineering';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { inflateSync } from 'node:zlib';
 import { eq } from 'drizzle-orm';
 import { createSite, createUser, createWorkOrder, insertUnitReading, signIn } from '../support/factories';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -18,6 +19,28 @@ beforeAll(async () => {
 afterAll(async () => {
   await app.close();
 });
+
+/** The text a PDF shows: pdfkit deflates each content stream and writes its strings as hex runs. */
+function pdfText(pdf: Buffer): string {
+  const raw = pdf.toString('latin1');
+  const lines: string[] = [];
+  for (const m of raw.matchAll(/\bstream\r?\n/g)) {
+    const from = m.index! + m[0].length;
+    const to = raw.indexOf('endstream', from);
+    if (to < 0) break;
+    let content: string;
+    try {
+      content = inflateSync(pdf.subarray(from, to)).toString('latin1');
+    } catch {
+      continue; // fonts and images: not text
+    }
+    for (const [, runs] of content.matchAll(/\[(.*?)\] TJ/g)) {
+      const hex = [...runs!.matchAll(/<([0-9a-f]*)>/g)].map((h) => h[1]).join('');
+      lines.push(Buffer.from(hex, 'hex').toString('latin1'));
+    }
+  }
+  return lines.join('\n').replace(/\u00b7/g, '·');
+}
 
 async function addBank(siteId: number, opts: { detuningFactor: number | null; steps: number; unitKvar: number; unitVoltageV: number }) {
   const { db } = app.ctx;
@@ -188,6 +211,16 @@ describe('GET /api/sites/:id/health', () => {
       raisedAt: '2026-11-01T08:00:00.000Z',
     });
     expect(health.openFlags[0]).toMatchObject({ kind: 'blown-fuse', state: 'in-hand', target: 'bank' });
+
+    // The PDF report lists them too.
+    const pdf = await app.request(`/api/sites/${siteId}/health/report.pdf`, { cookie: supervisor });
+    const text = pdfText(Buffer.from(await pdf.arrayBuffer()));
+    expect(text).toContain('Open flags (2)');
+    expect(text).toContain('Leg 1-2 reads near zero');
+    expect(text).toContain('in hand');
+    expect(text).toContain('Overdue orders (1)');
+    expect(text).toContain(`#${overdue} Half-yearly inspection · due 2026-01-10 · dispatched`);
+    expect(text).toContain('the newest taken 2026-11-20');
   });
 
   test('a site with no load known says so instead of guessing', async () => {

@@ -26,6 +26,7 @@ export function siteHealthPdf(health: SiteHealth, generatedAt: Date): Promise<Bu
 
   doc.fontSize(18).text(`${health.siteName}`, { continued: false });
   doc.fontSize(10).fillColor('#555').text(`Site health report · ${health.voltageV} V ${health.frequencyHz} Hz · generated ${generatedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`);
+  doc.text(health.newestReadingAt ? `From each unit's latest reading; the newest taken ${health.newestReadingAt.slice(0, 10)}.` : 'No reading recorded yet: every unit counts at its nameplate kvar.');
   doc.moveDown().fillColor('#000').fontSize(12);
   doc.text(`Installed correction: ${f(health.installedKvar)} kvar`);
   doc.text(`Effective correction: ${f(health.effectiveKvar)} kvar`);
@@ -66,8 +67,24 @@ export function siteHealthPdf(health: SiteHealth, generatedAt: Date): Promise<Bu
     }
     const warned = bank.resonance.filter((r) => r.warning);
     if (warned.length) {
-      doc.text(`Resonance with the supply near a harmonic: ${warned.map((r) => `${f(r.kvar, 0)} kvar → h ${f(r.order, 2)} (${r.nearestHarmonic}th)`).join('; ')}`);
+      const steps = (numbers: number[]) => (numbers.length === 1 ? `step ${numbers[0]}` : `steps ${numbers[0]}–${numbers[numbers.length - 1]}`);
+      doc.text(
+        `Resonance with the supply near a harmonic: ${warned.map((r) => `${steps(r.stepNumbers)} in, ${f(r.kvar, 0)} kvar → h ${f(r.order, 2)} (${r.nearestHarmonic}th)`).join('; ')}`,
+      );
     }
+  }
+
+  doc.moveDown().fontSize(13).text(`Open flags (${health.openFlags.length})`);
+  doc.fontSize(10);
+  if (health.openFlags.length === 0) doc.text('None: every finding of this site is cleared.');
+  for (const flag of health.openFlags) {
+    doc.text(`${flag.severity === 'action' ? 'Action' : 'Advisory'} · ${flag.kind.replace(/-/g, ' ')} · ${flag.bankName} · raised ${flag.raisedAt.slice(0, 10)}${flag.state === 'in-hand' ? ` · in hand${flag.correctiveOrderId ? `, order #${flag.correctiveOrderId}` : ''}` : ''}`);
+    doc.fillColor('#555').text(`   ${flag.message}`).fillColor('#000');
+  }
+  if (health.overdueOrders.length > 0) {
+    doc.moveDown().fontSize(13).text(`Overdue orders (${health.overdueOrders.length})`);
+    doc.fontSize(10);
+    for (const order of health.overdueOrders) doc.text(`#${order.id} ${order.title} · due ${order.dueOn} · ${order.state.replace(/-/g, ' ')}`);
   }
   doc.moveDown().fontSize(8).fillColor('#555').text(
     'Capacitors hold charge after isolation. Any work on a bank follows the site’s safety rules, its arc-flash assessment, local codes and licensed practice.',
