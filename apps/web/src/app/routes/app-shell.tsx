@@ -10,6 +10,7 @@ import { paths } from '../../config/paths';
 import { session, type SessionResponse } from '../../features/auth/api/session-queries';
 import { AccountBlock } from '../../features/auth/components/account-block';
 import { permitted } from '../../features/auth/lib/permitted';
+import { openStatesFilter } from '../../features/work-orders/lib/work-order-search';
 import { loadSession } from '../../features/auth/lib/route-guards';
 import { classNames } from '../../lib/class-names';
 import { currentSection, type RailSection } from './current-section';
@@ -22,7 +23,8 @@ export const sections: readonly Section[] = [
   { label: 'Planning desk', href: paths.planningDesk.getHref(), permission: 'work-orders:schedule' },
   { label: 'Today’s orders', href: paths.todaysOrders.getHref(), permission: 'work-orders:perform' },
   { label: 'Review queue', href: paths.reviewQueue.getHref(), permission: 'work-orders:review' },
-  { label: 'Work orders', href: paths.workOrders.list.getHref(), permission: 'work-orders:read' },
+  // Opens on the open orders, most urgent first; the state filter offers the sealed and withdrawn ones.
+  { label: 'Work orders', href: paths.workOrders.list.getHref(new URLSearchParams({ state: openStatesFilter })), permission: 'work-orders:read' },
   { label: 'Inspection plans', href: paths.plans.list.getHref(), permission: 'plans:manage' },
   { label: 'Flag queue', href: paths.flagQueue.getHref(), permission: 'work-orders:schedule' },
   { label: 'Site health', href: paths.siteHealth.getHref(), permission: 'reports:read' },

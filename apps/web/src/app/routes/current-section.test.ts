@@ -5,7 +5,7 @@ const sections = [
   { label: 'Site health', href: '/site-health' },
   { label: 'Fleet health', href: '/fleet', alsoOn: ['/sites/:siteId/health'] },
   { label: 'Register', href: '/sites' },
-  { label: 'Work orders', href: '/work-orders' },
+  { label: 'Work orders', href: '/work-orders?state=queued,dispatched' },
 ];
 const at = (pathname: string) => currentSection(sections, pathname)?.label;
 
@@ -22,5 +22,10 @@ describe('currentSection', () => {
     expect(at('/work-orders/7')).toBe('Work orders');
     expect(at('/work-orders-archive')).toBeUndefined();
     expect(at('/people')).toBeUndefined();
+  });
+
+  test('a section whose address carries a default filter still owns its pages', () => {
+    expect(at('/work-orders')).toBe('Work orders');
+    expect(at('/work-orders/7')).toBe('Work orders');
   });
 });

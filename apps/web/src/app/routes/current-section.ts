@@ -6,7 +6,11 @@ export type RailSection = {
   alsoOn?: readonly string[];
 };
 
-const within = (pathname: string, href: string) => pathname === href || pathname.startsWith(href.endsWith('/') ? href : `${href}/`);
+/** Whether `pathname` is the section's address or below it; a query in the address (a default filter) does not count. */
+const within = (pathname: string, href: string) => {
+  const base = href.split('?')[0]!;
+  return pathname === base || pathname.startsWith(base.endsWith('/') ? base : `${base}/`);
+};
 
 /**
  * The rail's entry for a page: a section that claims the page's pattern first (a site's health
