@@ -2,7 +2,7 @@ import type { ColumnDef } from '@tanstack/react-table';
 import type { ReactNode } from 'react';
 import { DataTable as TableView } from '../../../components/data-table';
 import { Pager } from '../../../components/pager';
-import { useServerTable } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/use-server-table';
 import type { ListParams } from '../api/list-params';
 import { pageSizes } from './list-search';
 

@@ -6,7 +6,7 @@ import { DataTable } from '../../../components/data-table';
 import { Pager } from '../../../components/pager';
 import { paths } from '../../../config/paths';
 import { formatDateTime } from '../../../lib/date-format';
-import { useServerTable } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/use-server-table';
 import type { AuditLogSearch } from '../lib/audit-log-search';
 import { describeAuditEntry, type SiteNamer } from '../lib/describe-audit-entry';
 

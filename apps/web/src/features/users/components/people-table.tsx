@@ -8,7 +8,7 @@ import { Pager } from '../../../components/pager';
 import { paths } from '../../../config/paths';
 import { classNames } from '../../../lib/class-names';
 import { formatDate, formatDateTime } from '../../../lib/date-format';
-import { useServerTable } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/use-server-table';
 import { roleLabels, roleList } from '../../auth/lib/role-labels';
 import { peopleSearchDefaults, type PeopleSearch } from '../lib/people-search';
 import { AccountStatus, accountStatusLabels } from './account-status';

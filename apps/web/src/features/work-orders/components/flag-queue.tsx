@@ -10,7 +10,7 @@ import { FormAlert, FormSuccess } from '../../../components/form/form-alert';
 import { Pager } from '../../../components/pager';
 import { classNames } from '../../../lib/class-names';
 import { formatDateTime } from '../../../lib/date-format';
-import { useServerTable } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/use-server-table';
 import { siteQueries } from '../../register/api/site-queries';
 import { flagMutations, type FlagSearch } from '../api/flag-queries';
 import { targetLabel } from '../lib/work-order-words';

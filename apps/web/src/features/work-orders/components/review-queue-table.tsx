@@ -5,7 +5,7 @@ import { buttonClassName } from '../../../components/button';
 import { DataTable } from '../../../components/data-table';
 import { Pager } from '../../../components/pager';
 import { formatDateTime } from '../../../lib/date-format';
-import { useServerTable } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/use-server-table';
 import type { WorkOrderSearch } from '../lib/work-order-search';
 import { kindLabels } from '../lib/work-order-words';
 import { paths } from '../../../config/paths';

@@ -7,7 +7,7 @@ import { DataTable } from '../../../components/data-table';
 import { controlClass } from '../../../components/form/field-parts';
 import { Pager } from '../../../components/pager';
 import { classNames } from '../../../lib/class-names';
-import { useServerTable } from '../../../lib/server-table';
+import { useServerTable } from '../../../lib/use-server-table';
 import { siteQueries } from '../../register/api/site-queries';
 import { technicians } from '../api/technician-queries';
 import { formatCalendarDate } from '../lib/calendar-date';
