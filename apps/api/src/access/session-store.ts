@@ -37,9 +37,8 @@ export interface SessionRecord {
   user: { id: number; email: string; name: string; active: boolean; roles: Role[] };
 }
 
-/** The session with its user and roles in one round trip. */
-export async function findSession(db: Executor, tokenHash: string): Promise<SessionRecord | undefined> {
-  const [row] = await db
+function sessionLookup(db: Executor) {
+  return db
     .select({
       sessionId: sessions.id,
       lastSeenAt: sessions.lastSeenAt,
@@ -52,7 +51,18 @@ export async function findSession(db: Executor, tokenHash: string): Promise<Sess
     })
     .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
-    .where(eq(sessions.tokenHash, tokenHash));
+    .where(eq(sessions.tokenHash, sql.placeholder('tokenHash')))
+    .prepare();
+}
+
+/** Every request looks its session up: the statement is built once per database handle. */
+const preparedLookups = new WeakMap<Executor, ReturnType<typeof sessionLookup>>();
+
+/** The session with its user and roles in one round trip. */
+export async function findSession(db: Executor, tokenHash: string): Promise<SessionRecord | undefined> {
+  let lookup = preparedLookups.get(db);
+  if (!lookup) preparedLookups.set(db, (lookup = sessionLookup(db)));
+  const [row] = await lookup.execute({ tokenHash });
   if (!row) return undefined;
   return {
     sessionId: row.sessionId,

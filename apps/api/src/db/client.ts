@@ -20,6 +20,8 @@ export function createDatabase(url: string, poolSize = 20) {
     dateStrings: false,
     supportBigNumbers: true,
     decimalNumbers: true,
+    // No stack captured at every query's call site (mysql2's default): Drizzle wraps each error with its query already.
+    trace: false,
   });
   const db = drizzle(pool, { schema, mode: 'planetscale' });
   return { db, pool };
