@@ -7,6 +7,7 @@ import { hashPassword } from '../../apps/api/src/security/password-hashing';
 import { findUserRecord, insertUser, replaceRoles, replaceSiteGrants } from '../../apps/api/src/modules/users/repository';
 import { toUser } from '../../apps/api/src/modules/users/to-user';
 import { eq } from 'drizzle-orm';
+import { bumpReadRevision } from '../../apps/api/src/db/read-cache';
 import { banks, capacitorUnits, contactors, fuseSets, outbox, reactors, readings, sites, steps, workOrders } from '../../apps/api/src/db/schema/index';
 import { deliverOutbox } from '../../apps/api/src/mail/outbox';
 import { applyMigrations } from '../../apps/api/src/db/migrate';
@@ -99,6 +100,7 @@ export async function createSite(ctx: AppContext, values: Partial<typeof sites.$
       ...values,
     })
     .$returningId();
+  await bumpReadRevision(ctx.db);
   return created!.id;
 }
 
@@ -130,6 +132,7 @@ export async function createBankWithUnits(
     result.contactorIds.push(step.contactorId);
     result.fuseSetIds.push(step.fuseSetId);
   }
+  await bumpReadRevision(ctx.db);
   return result;
 }
 
@@ -177,6 +180,7 @@ export async function createWorkOrder(
         : {}),
     })
     .$returningId();
+  await bumpReadRevision(ctx.db);
   return created!.id;
 }
 
@@ -218,6 +222,7 @@ export async function createStepWithUnits(
     .values({ siteId, name: unique('Bank'), detuned, detuningFactor: options.detuningFactor ?? null })
     .$returningId();
   const step = await insertStep(ctx, bank!.id, 1, { ...options, frequencyHz: options.site?.frequencyHz ?? 50, detuningFactor: detuned && options.withReactor !== false ? options.detuningFactor : undefined });
+  await bumpReadRevision(ctx.db);
   return { siteId, bankId: bank!.id, ...step };
 }
 
@@ -305,6 +310,7 @@ export async function insertUnitReading(
       recordedAt: options.recordedAt ?? new Date(),
     })
     .$returningId();
+  await bumpReadRevision(ctx.db);
   return created!.id;
 }
 

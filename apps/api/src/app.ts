@@ -7,6 +7,7 @@ import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { AppContext } from './context';
 import { errorMiddleware, notFoundHandler } from './http/error-middleware';
+import { readRevisionOnWrite } from './http/read-revision';
 import { healthRoutes } from './modules/health/routes';
 import { originCheck } from './access/origin-check';
 import { sessionMiddleware } from './access/session-middleware';
@@ -28,6 +29,8 @@ export const jsonBodyLimitBytes = 1024 * 1024;
 export function createApp(ctx: AppContext): express.Express {
   const app = express();
   app.disable('x-powered-by');
+  // API answers are never cached (no-store), so no ETag is hashed over each body; static files keep theirs.
+  app.set('etag', false);
   app.set('trust proxy', 'loopback');
   app.use(
     pinoHttp({
@@ -75,6 +78,8 @@ export function createApp(ctx: AppContext): express.Express {
     next();
   });
   api.use(sessionMiddleware(ctx));
+  // A write's answer leaves only after the data's revision has moved on (db/read-cache.ts).
+  api.use(readRevisionOnWrite(ctx.db, ctx.log));
   // Every route declares its permission with allow() (access/policy.ts); the route table test
   // fails for one that does not.
   api.use(healthRoutes(ctx));

@@ -1,5 +1,6 @@
 import cron from 'node-cron';
 import type { AppContext } from '../context';
+import { pruneReadCache } from '../db/read-cache';
 import { deliverOutbox } from '../mail/outbox';
 import { purgeStaleAccessRecords } from '../modules/auth/housekeeping';
 import { createDueInspectionOrders } from '../modules/plans/due-inspections';
@@ -18,6 +19,8 @@ export const jobs: Job[] = [
   { name: 'overdue-digest', schedule: '30 6 * * *', run: (ctx) => sendOverdueDigest(ctx) },
   // Every morning, so a month whose 1st fell in an outage still gets its summary; once per month.
   { name: 'site-summaries', schedule: '45 6 * * *', run: (ctx) => queueMonthlySummaries(ctx) },
+  // Stored answers hold for a quarter hour at most; those of the hour before are dead weight.
+  { name: 'read-cache-pruning', schedule: '23 * * * *', run: (ctx) => pruneReadCache(ctx.db, new Date(Date.now() - 3_600_000)) },
 ];
 
 export function startJobs(ctx: AppContext, list: Job[] = jobs): { stop: () => void } {

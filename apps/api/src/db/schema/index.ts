@@ -4,3 +4,4 @@ export * from './system';
 export * from './access';
 export * from './register';
 export * from './work';
+export * from './read-cache';

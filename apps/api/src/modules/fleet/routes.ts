@@ -4,12 +4,19 @@ import { allow } from '../../access/allow';
 import { signedInUser } from '../../access/current-user';
 import { siteScope } from '../../access/site-scope';
 import type { AppContext } from '../../context';
+import { cacheKey, readThrough } from '../../db/read-cache';
+import { sendJsonText } from '../../http/json-text';
 import { fleetOverview } from './service';
 
 export function fleetRoutes(ctx: AppContext): Router {
   const router = Router();
   router.get('/fleet', allow('reports:read'), async (_req, res) => {
-    res.json(await fleetOverview(ctx.db, siteScope(signedInUser(res))));
+    const scope = siteScope(signedInUser(res));
+    const answer = await readThrough(ctx.db, cacheKey('fleet', scope === 'all' ? 'all' : scope.join(',')), async () => ({
+      value: await fleetOverview(ctx.db, scope),
+      siteId: null,
+    }));
+    sendJsonText(res, answer.body);
   });
   router.get('/fleet/export.csv', allow('reports:read'), async (_req, res) => {
     const fleet = await fleetOverview(ctx.db, siteScope(signedInUser(res)));

@@ -1,5 +1,6 @@
 import type { ChecklistItem } from '@varden/schemas';
 import type { AppContext } from '../../context';
+import { bumpReadRevision } from '../../db/read-cache';
 import { isDuplicateKey } from '../../db/versioned';
 import { addDays, addMonths, utcDate } from '../work-orders/calendar';
 import { fromJson } from '../work-orders/to-work-order';
@@ -39,6 +40,16 @@ export interface DueInspectionsResult {
  */
 export async function createDueInspectionOrders(ctx: AppContext, today: string = utcDate()): Promise<DueInspectionsResult> {
   const result: DueInspectionsResult = { created: [], skipped: 0 };
+  try {
+    await createDueOrders(ctx, today, result);
+  } finally {
+    // Outside the API, so the revision moves on here: the new orders show in every stored list at once.
+    if (result.created.length > 0) await bumpReadRevision(ctx.db);
+  }
+  return result;
+}
+
+async function createDueOrders(ctx: AppContext, today: string, result: DueInspectionsResult): Promise<void> {
   for (const planId of await duePlanIds(ctx.db, today)) {
     try {
       const created = await ctx.db.transaction(async (tx) => {
@@ -79,6 +90,5 @@ export async function createDueInspectionOrders(ctx: AppContext, today: string =
     }
   }
   if (result.created.length > 0) ctx.log.info({ created: result.created }, 'inspection orders created from plans');
-  return result;
 }
 

@@ -5,6 +5,7 @@ import { allow } from '../../access/allow';
 import { signedInUser } from '../../access/current-user';
 import type { AppContext } from '../../context';
 import { validate } from '../../http/validate';
+import { sendJsonText } from '../../http/json-text';
 import { listUnitReadings, readingsOfVisibleOrder, recordReading } from './readings.service';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() });
@@ -29,7 +30,7 @@ export function readingRoutes(ctx: AppContext): Router {
     allow('register:read'),
     validate({ params: idParams, query: unitReadingListQuery }),
     async (_req, res) => {
-      res.json(await listUnitReadings(ctx.db, signedInUser(res), id(res), res.locals.query as z.output<typeof unitReadingListQuery>));
+      sendJsonText(res, await listUnitReadings(ctx.db, signedInUser(res), id(res), res.locals.query as z.output<typeof unitReadingListQuery>));
     },
   );
 

@@ -6,6 +6,9 @@ import { signedInUser } from '../../access/current-user';
 import { siteScope } from '../../access/site-scope';
 import type { AppContext } from '../../context';
 import { validate } from '../../http/validate';
+import { AppError } from '../../http/app-error';
+import { cacheKey, readThrough } from '../../db/read-cache';
+import { sendJsonText } from '../../http/json-text';
 import { siteHealthPdf } from './report-pdf';
 import { siteHealth } from './service';
 
@@ -16,7 +19,13 @@ export function siteHealthRoutes(ctx: AppContext): Router {
   router.get('/sites/:id/health', allow('reports:read'), validate({ params, query: siteHealthQuery }), async (_req, res) => {
     const { id } = res.locals.params as z.output<typeof params>;
     const { hoursPerMonth } = res.locals.query as z.output<typeof siteHealthQuery>;
-    res.json(await siteHealth(ctx.db, siteScope(signedInUser(res)), id, hoursPerMonth));
+    const scope = siteScope(signedInUser(res));
+    if (scope !== 'all' && !scope.includes(id)) throw new AppError('not_found', `Site ${id} does not exist.`);
+    const answer = await readThrough(ctx.db, cacheKey('site-health', id, hoursPerMonth), async () => ({
+      value: await siteHealth(ctx.db, scope, id, hoursPerMonth),
+      siteId: id,
+    }));
+    sendJsonText(res, answer.body);
   });
   router.get('/sites/:id/health/report.pdf', allow('reports:read'), validate({ params, query: siteHealthQuery }), async (_req, res) => {
     const { id } = res.locals.params as z.output<typeof params>;

@@ -9,7 +9,8 @@ import { exportWorkOrdersCsv } from './export-csv';
 import { getWorkOrderDetail, getWorkOrderReview } from './order-detail.service';
 import { signedRecordPdf } from './record.service';
 import { transitionWorkOrder } from './transitions.service';
-import { createWorkOrder, listWorkOrders, updateWorkOrder } from './work-orders.service';
+import { sendJsonText } from '../../http/json-text';
+import { createWorkOrder, updateWorkOrder, workOrderPage } from './work-orders.service';
 import { assignableTechnicians, workloadOf } from './workload.service';
 
 const idParams = z.object({ id: z.coerce.number().int().positive() });
@@ -23,7 +24,7 @@ export function workOrderRoutes(ctx: AppContext): Router {
   const byId = validate({ params: idParams });
 
   router.get('/work-orders', read, validate({ query: workOrderListQuery }), async (_req, res) => {
-    res.json(await listWorkOrders(ctx, signedInUser(res), res.locals.query));
+    sendJsonText(res, await workOrderPage(ctx, signedInUser(res), res.locals.query));
   });
   router.get('/work-orders/export.csv', read, validate({ query: workOrderListQuery }), async (_req, res) => {
     const csv = await exportWorkOrdersCsv(ctx, signedInUser(res), res.locals.query);

@@ -13,6 +13,7 @@ import { siteScope } from '../../access/site-scope';
 import type { AppContext } from '../../context';
 import type { Executor } from '../../access/executor';
 import { banks, workOrders } from '../../db/schema/index';
+import { cacheKey, readThrough } from '../../db/read-cache';
 import { updateVersioned } from '../../db/versioned';
 import { AppError } from '../../http/app-error';
 import { noticeAssigned } from './notices';
@@ -58,6 +59,17 @@ export async function listWorkOrders(ctx: AppContext, user: SessionUser, q: List
   const { rows, total } = await listOrderViews(ctx.db, filterOf(user, q), q);
   const now = new Date();
   return { items: rows.map((r) => toWorkOrder(r, now)), total };
+}
+
+/**
+ * A page of work orders as JSON text, stored for the next reader with the same filter (the
+ * same scope and query, whoever asks: db/read-cache.ts).
+ */
+export async function workOrderPage(ctx: AppContext, user: SessionUser, q: ListQuery): Promise<string> {
+  const filter = filterOf(user, q);
+  const key = cacheKey('work-orders', JSON.stringify({ ...filter, sort: q.sort, page: q.page, pageSize: q.pageSize }));
+  const answer = await readThrough(ctx.db, key, async () => ({ value: await listWorkOrders(ctx, user, q), siteId: null }));
+  return answer.body;
 }
 
 export async function loadOrderView(db: Executor, id: number): Promise<WorkOrderView> {
