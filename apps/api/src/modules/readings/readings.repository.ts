@@ -1,5 +1,5 @@
 import { projectDrift } from '@varden/engineering';
-import { and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lte, ne, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNotNull, isNull, ne, sql } from 'drizzle-orm';
 import type { Executor } from '../../access/executor';
 import {
   banks,
@@ -35,11 +35,6 @@ export async function findReadingByKey(db: Executor, idempotencyKey: string) {
   return row;
 }
 
-export async function findReadingById(db: Executor, id: number) {
-  const [row] = await db.select(readingColumns).from(readings).innerJoin(users, eq(users.id, readings.recordedById)).where(eq(readings.id, id));
-  return row;
-}
-
 export async function readingsOfOrder(db: Executor, workOrderId: number) {
   return db
     .select(readingColumns)
@@ -62,9 +57,19 @@ export async function lockOrder(db: Executor, orderId: number) {
   return row;
 }
 
-/** Serialises readings on one bank, so flags are raised once and latest evaluations move forward only. */
-export async function lockBank(db: Executor, bankId: number): Promise<void> {
-  await db.select({ id: banks.id }).from(banks).where(eq(banks.id, bankId)).for('update');
+/**
+ * lockOrder and the lock on the order's bank in one statement (FOR UPDATE locks the rows read
+ * from both tables): readings on one bank are serialised, so flags are raised once and latest
+ * evaluations move forward only.
+ */
+export async function lockOrderAndBank(db: Executor, orderId: number) {
+  const [row] = await db
+    .select({ id: workOrders.id, state: workOrders.state, locked: workOrders.locked, assigneeId: workOrders.assigneeId, bankId: banks.id })
+    .from(workOrders)
+    .innerJoin(banks, eq(banks.id, workOrders.bankId))
+    .where(eq(workOrders.id, orderId))
+    .for('update');
+  return row;
 }
 
 const placeColumns = {
@@ -213,8 +218,8 @@ export const replaceBelowPct = -10;
  * dashboard reads one row per unit instead of the history.
  */
 export async function refreshUnitDrift(db: Executor, unitId: number): Promise<void> {
-  const [latest] = await db.select({ recordedAt: unitLatestEvaluations.recordedAt }).from(unitLatestEvaluations).where(eq(unitLatestEvaluations.unitId, unitId));
-  if (!latest) return;
+  // The window ends at the latest evaluation's reading, read in the same statement.
+  const latestAt = sql`(select ${unitLatestEvaluations.recordedAt} from ${unitLatestEvaluations} where ${unitLatestEvaluations.unitId} = ${unitId})`;
   const points = await db
     .select({ recordedAt: readings.recordedAt, deviationPct: readings.deviationPct })
     .from(readings)
@@ -222,8 +227,8 @@ export async function refreshUnitDrift(db: Executor, unitId: number): Promise<vo
       and(
         eq(readings.target, 'capacitor-unit'),
         eq(readings.targetId, unitId),
-        gte(readings.recordedAt, new Date(latest.recordedAt.getTime() - driftWindowMs)),
-        lte(readings.recordedAt, latest.recordedAt),
+        sql`${readings.recordedAt} >= ${latestAt} - interval ${sql.raw(String(Math.round(driftWindowMs / 1000)))} second`,
+        sql`${readings.recordedAt} <= ${latestAt}`,
         isNotNull(readings.deviationPct),
       ),
     );

@@ -7,20 +7,19 @@ import type { AppContext } from '../../context';
 import type { Database } from '../../db/client';
 import type { flags } from '../../db/schema/index';
 import { isDuplicateKey } from '../../db/versioned';
+import { cacheKey, readThrough } from '../../db/read-cache';
 import { AppError } from '../../http/app-error';
 import { notifyReplaceFlag } from '../flags/flag-mail';
-import { findOrderForRecording, findVisibleOrder } from '../work-orders/order-guard';
+import { assertRecordable, findOrderForRecording, findVisibleOrder } from '../work-orders/order-guard';
 import { evaluateReading } from './evaluate';
 import type { ReadingInputValue } from './evaluation-types';
 import {
   advanceUnitLatest,
-  findReadingById,
   findReadingByKey,
   flagKey,
   insertFlag,
   insertReading,
-  lockBank,
-  lockOrder,
+  lockOrderAndBank,
   readingsOfOrder,
   refreshUnitDrift,
   siteOfUnit,
@@ -51,31 +50,29 @@ export async function recordReading(
   input: ReadingInputValue,
 ): Promise<{ reading: Reading; created: boolean }> {
   const { db } = ctx;
-  await findVisibleOrder(db, user, orderId);
-  const earlier = await findReadingByKey(db, input.idempotencyKey);
+  const [visible, earlier] = await Promise.all([findVisibleOrder(db, user, orderId), findReadingByKey(db, input.idempotencyKey)]);
   if (earlier && isRetryOf(earlier.reading, user, orderId, input)) return { reading: toReading(earlier), created: false };
-  const order = await findOrderForRecording(db, user, orderId);
+  const order = assertRecordable(visible, user);
   if (earlier) throw keyTaken();
   const recordedAt = recordedAtOf(input);
 
-  let stored: { readingId: number; newFlags: FlagRow[] } | 'stored-by-another-request';
+  let stored: { row: ReadingRow; newFlags: FlagRow[] } | 'stored-by-another-request';
   try {
     stored = await db.transaction(async (tx) => {
-      const current = await lockOrder(tx, orderId);
+      const current = await lockOrderAndBank(tx, orderId);
       if (!current || current.locked || current.state !== 'on-site' || current.assigneeId !== user.id) {
         // It moved on between the check and the lock: the guard says how.
         await findOrderForRecording(db, user, orderId);
         throw new AppError('conflict', `Work order ${orderId} changed while the reading was being stored. Reload it.`);
       }
-      await lockBank(tx, order.bankId);
-      if (await findReadingByKey(tx, input.idempotencyKey)) return 'stored-by-another-request' as const;
+      // A second request with the same key waits on the bank's lock, then meets the unique key (caught below).
 
       const outcome = await evaluateReading(tx, order, input, recordedAt);
       const open = await unclearedFlagKeys(tx, outcome.flags);
       const drafts = outcome.flags.filter((f, i, all) => all.findIndex((g) => flagKey(g) === flagKey(f)) === i);
       outcome.evaluation.flags = drafts.map((f) => ({ kind: f.kind, severity: f.severity, message: f.message, alreadyOpen: open.has(flagKey(f)) }));
 
-      const readingId = await insertReading(tx, {
+      const values = {
         workOrderId: orderId,
         idempotencyKey: input.idempotencyKey,
         target: input.target,
@@ -87,7 +84,8 @@ export async function recordReading(
         deviationPct: outcome.deviationPct,
         recordedById: user.id,
         recordedAt,
-      });
+      };
+      const readingId = await insertReading(tx, values);
       if (outcome.unitResult) {
         await advanceUnitLatest(tx, { unitId: input.targetId, readingId, recordedAt, ...outcome.unitResult });
         await refreshUnitDrift(tx, input.targetId);
@@ -98,10 +96,12 @@ export async function recordReading(
         if (open.has(flagKey(draft))) continue;
         newFlags.push(await insertFlag(tx, { ...draft, siteId: order.siteId, bankId: order.bankId, readingId, raisedAt }));
       }
-      return { readingId, newFlags };
+      // The stored row as it would read back (JSON columns hold what was written); no second query.
+      const row: ReadingRow = { id: readingId, ...values, band: values.band ?? null, deviationPct: values.deviationPct ?? null, createdAt: new Date() };
+      return { row, newFlags };
     });
   } catch (error) {
-    // Two identical requests at once on different banks' locks: the unique key let one through.
+    // Two identical requests at once: the unique key let one through.
     if (!isDuplicateKey(error)) throw error;
     stored = 'stored-by-another-request';
   }
@@ -113,8 +113,7 @@ export async function recordReading(
     return { reading: toReading(row), created: false };
   }
   await announceNewFlags(ctx, stored.newFlags);
-  const row = await findReadingById(db, stored.readingId);
-  return { reading: toReading(row!), created: true };
+  return { reading: toReading({ reading: stored.row, recordedByName: user.name }), created: true };
 }
 
 /**
@@ -183,15 +182,17 @@ export async function readingsOfVisibleOrder(db: Database, user: SessionUser, or
 }
 
 /** A capacitor unit's reading history for its table and trend chart, paged. */
-export async function listUnitReadings(
+/**
+ * A unit's readings, newest first by default, as the unit's page of history, with the unit's
+ * site for the reader's scope check (the answer is stored and shared: db/read-cache.ts).
+ */
+export async function unitReadingHistory(
   db: Database,
-  user: SessionUser,
   unitId: number,
   q: z.output<typeof unitReadingListQuery>,
-): Promise<{ items: UnitReading[]; total: number }> {
+): Promise<{ value: { items: UnitReading[]; total: number }; siteId: number }> {
   const siteId = await siteOfUnit(db, unitId);
-  const scope = siteScope(user);
-  if (siteId === undefined || (scope !== 'all' && !scope.includes(siteId))) throw new AppError('not_found', `Capacitor unit ${unitId} does not exist.`);
+  if (siteId === undefined) throw unitNotFound(unitId);
   const { rows, total } = await unitReadingPage(db, unitId, q);
   const items = rows.map(({ reading, workOrderState }) => {
     const e = reading.evaluation;
@@ -207,5 +208,15 @@ export async function listUnitReadings(
       band: reading.band ?? 'remeasure',
     };
   });
-  return { items, total };
+  return { value: { items, total }, siteId };
+}
+
+export const unitNotFound = (unitId: number) => new AppError('not_found', `Capacitor unit ${unitId} does not exist.`);
+
+/** A unit's history for a user: a unit on a site outside their scope does not exist for them. */
+export async function listUnitReadings(db: Database, user: SessionUser, unitId: number, q: z.output<typeof unitReadingListQuery>) {
+  const answer = await readThrough(db, cacheKey('unit-readings', unitId, q.sort, q.page, q.pageSize), () => unitReadingHistory(db, unitId, q));
+  const scope = siteScope(user);
+  if (scope !== 'all' && !scope.includes(answer.siteId!)) throw unitNotFound(unitId);
+  return answer.body;
 }

@@ -22,7 +22,12 @@ export async function findVisibleOrder(db: Database, user: SessionUser, orderId:
  * order is on site (safety card acknowledged), never once sealed.
  */
 export async function findOrderForRecording(db: Database, user: SessionUser, orderId: number): Promise<WorkOrderRow> {
-  const order = await findVisibleOrder(db, user, orderId);
+  return assertRecordable(await findVisibleOrder(db, user, orderId), user);
+}
+
+/** The rules of findOrderForRecording on an order already read. */
+export function assertRecordable(order: WorkOrderRow, user: SessionUser): WorkOrderRow {
+  const orderId = order.id;
   if (order.locked) throw new AppError('locked', `Work order ${orderId} is sealed (signed off); its record can no longer change.`);
   if (order.assigneeId !== user.id) {
     throw new AppError('forbidden', `Work order ${orderId} is assigned to someone else; only its assignee records on it.`);
