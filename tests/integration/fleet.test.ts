@@ -1,7 +1,9 @@
 import { projectDrift } from '@varden/engineering';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { banks, capacitorUnits, flags, readings, steps, unitLatestEvaluations, workOrders } from '../../apps/api/src/db/schema/index';
-import { createSite, createUser, signIn } from '../support/factories';
+import type { FleetOverview } from '@varden/schemas';
+import { fleetListLimit } from '../../apps/api/src/modules/fleet/service';
+import { createBankWithUnits, createSite, createUser, createWorkOrder, signIn, startIsolatedTestApp } from '../support/factories';
 import { startTestApp, unique, type TestApp } from '../support/test-app';
 
 let app: TestApp;
@@ -61,6 +63,31 @@ async function addReading(orderId: number, unitId: number, recordedAt: string, d
 }
 
 describe('GET /api/fleet', () => {
+  test('its lists carry the most urgent entries only; each site row still counts all of its own', async () => {
+    // A database of its own: the orders made here would crowd other files' orders out of the list.
+    const own = await startIsolatedTestApp('fleet_lists');
+    try {
+      const p = await createUser(own.ctx, { roles: ['planner'] });
+      const cookie = await signIn(own, p.email, p.password);
+      const bank = await createBankWithUnits(own.ctx, { steps: 1 });
+      const dueDates: string[] = [];
+      for (let i = 0; i <= fleetListLimit; i++) {
+        const dueOn = new Date(Date.UTC(2021, 0, 1 + i)).toISOString().slice(0, 10);
+        dueDates.push(dueOn);
+        await createWorkOrder(own.ctx, { bank, dueOn, title: unique('Overdue') });
+      }
+      const res = await own.request('/api/fleet', { cookie });
+      expect(res.status).toBe(200);
+      const fleet = (await res.json()) as FleetOverview;
+      const row = fleet.sites.find((s) => s.siteId === bank.siteId)!;
+      expect(row.overdueOrders).toBe(fleetListLimit + 1);
+      // The longest overdue first; the last one made (the most recent due date) is left out.
+      expect(fleet.overdueOrders.map((o) => o.dueOn)).toEqual(dueDates.slice(0, fleetListLimit));
+    } finally {
+      await own.close();
+    }
+  }, 60_000);
+
   test('ranks sites by risk, counts bands, projects replacements from drift and lists overdue orders', async () => {
     const { db } = app.ctx;
     const risky = await siteWithUnits(2, '2026-01-10');

@@ -13,9 +13,16 @@ export const riskWeights = { replace: 10, actionFlag: 5, overdueOrder: 3, remeas
 const isoDay = (d: Date) => d.toISOString().slice(0, 10);
 
 /**
+ * The fleet's lists carry their most urgent entries only (soonest replacement, longest overdue);
+ * every site's row counts all of its own, so the totals are the sums over the sites.
+ */
+export const fleetListLimit = 100;
+
+/**
  * The fleet at a glance for the sites a user may read: sites ranked by risk (units to replace,
  * open action flags such as tuning drift towards a harmonic, overdue orders), counts per band,
- * replacements projected for the next 12 months from each unit's drift, and overdue orders.
+ * replacements projected for the next 12 months from each unit's drift, and overdue orders
+ * (each list the first `fleetListLimit`, most urgent first).
  */
 export async function fleetOverview(db: Database, scope: SiteScope, today = new Date()): Promise<FleetOverview> {
   const siteRows = await db
@@ -54,7 +61,7 @@ export async function fleetOverview(db: Database, scope: SiteScope, today = new 
       })
       .from(workOrders)
       .where(and(inArray(workOrders.siteId, siteIds), lt(workOrders.dueOn, todayIso), notInArray(workOrders.state, [...closedStates])))
-      .orderBy(asc(workOrders.dueOn)),
+      .orderBy(asc(workOrders.dueOn), asc(workOrders.id)),
     // Each unit's drift is fitted when its reading is stored (refreshUnitDrift): one row per unit, never the history.
     db
       .select({
@@ -122,7 +129,7 @@ export async function fleetOverview(db: Database, scope: SiteScope, today = new 
   return {
     sites: items,
     totals,
-    projectedReplacements: projected,
-    overdueOrders: overdueRows.map((o) => ({ ...o, siteName: siteName.get(o.siteId) ?? '' })),
+    projectedReplacements: projected.slice(0, fleetListLimit),
+    overdueOrders: overdueRows.slice(0, fleetListLimit).map((o) => ({ ...o, siteName: siteName.get(o.siteId) ?? '' })),
   };
 }

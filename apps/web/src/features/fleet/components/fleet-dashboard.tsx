@@ -22,6 +22,7 @@ function Headline({ term, value, children }: { term: ReactNode; value: number; c
 function FleetHeadlines({ fleet }: { fleet: FleetOverview }) {
   const actionFlags = fleet.sites.reduce((n, s) => n + s.openActionFlags, 0);
   const nearHarmonic = fleet.sites.reduce((n, s) => n + s.stepsNearHarmonic, 0);
+  const { overdue, replacements } = fleetListTotals(fleet);
   return (
     <dl className="grid grid-cols-2 gap-3 desk:grid-cols-4" aria-label="The fleet in figures">
       <Headline term={<ConditionGlyph band="replace" />} value={fleet.totals.replace}>
@@ -30,10 +31,10 @@ function FleetHeadlines({ fleet }: { fleet: FleetOverview }) {
       <Headline term="Action flags" value={actionFlags}>
         open{nearHarmonic > 0 ? `, ${countOf(nearHarmonic, 'step')} near a harmonic` : ''}
       </Headline>
-      <Headline term="Overdue orders" value={fleet.overdueOrders.length}>
+      <Headline term="Overdue orders" value={overdue}>
         past their due date
       </Headline>
-      <Headline term="Replacements" value={fleet.projectedReplacements.length}>
+      <Headline term="Replacements" value={replacements}>
         due in the next 12 months
       </Headline>
     </dl>
@@ -48,8 +49,23 @@ type FleetDashboardProps = {
   exportAction?: ReactNode;
 };
 
+/**
+ * The fleet's lists hold their most urgent entries only; each site's row counts all of its
+ * own, so the whole number is the sum over the sites.
+ */
+function fleetListTotals(fleet: FleetOverview) {
+  return {
+    overdue: fleet.sites.reduce((n, s) => n + s.overdueOrders, 0),
+    replacements: fleet.sites.reduce((n, s) => n + s.projectedReplacements, 0),
+  };
+}
+
+/** "the 100 most urgent of 553" when a list is cut short, else nothing. */
+const shownOf = (shown: number, all: number, what: string) => (shown < all ? ` Showing the ${shown} most urgent of ${all} ${what}.` : '');
+
 /** The fleet dashboard: sites by risk, units by condition, replacements due within a year, overdue orders. */
 export function FleetDashboard({ fleet, emptySites, exportAction }: FleetDashboardProps) {
+  const { overdue, replacements } = fleetListTotals(fleet);
   return (
     <div className="grid gap-6">
       <FleetHeadlines fleet={fleet} />
@@ -64,11 +80,11 @@ export function FleetDashboard({ fleet, emptySites, exportAction }: FleetDashboa
         <HealthPanel title="Units by condition" lead="Every capacitor unit of these sites, by the band of its latest reading.">
           <BandTotalsChart totals={fleet.totals} />
         </HealthPanel>
-        <HealthPanel title="Overdue orders" lead="Open work orders past their due date.">
+        <HealthPanel title="Overdue orders" lead={`Open work orders past their due date, longest overdue first.${shownOf(fleet.overdueOrders.length, overdue, 'overdue orders')}`}>
           <OverdueOrdersTable orders={fleet.overdueOrders} />
         </HealthPanel>
       </div>
-      <HealthPanel title="Replacements due in 12 months" lead="Units whose loss of capacitance, fitted over their readings, crosses the replace threshold (−10 %) within a year; soonest first.">
+      <HealthPanel title="Replacements due in 12 months" lead={`Units whose loss of capacitance, fitted over their readings, crosses the replace threshold (−10 %) within a year; soonest first.${shownOf(fleet.projectedReplacements.length, replacements, 'units')}`}>
         <ReplacementsTable projected={fleet.projectedReplacements} />
       </HealthPanel>
     </div>
