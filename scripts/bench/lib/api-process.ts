@@ -34,6 +34,9 @@ function statusFieldMB(pid: number, field: 'VmHWM' | 'VmRSS'): number {
   return match ? Number(match[1]) / 1024 : Number.NaN;
 }
 
+/** Extra Node flags for the API process, e.g. BENCH_API_NODE_FLAGS="--cpu-prof --cpu-prof-dir=/tmp/prof" to profile it. */
+const nodeFlags = () => (process.env.BENCH_API_NODE_FLAGS ?? '').split(' ').filter(Boolean);
+
 /**
  * Starts apps/api/src/server.ts with NODE_ENV=production and the environment the bench
  * orchestrator passed down (DATABASE_URL, S3_*, SMTP_URL, WEB_DIST_DIR), and waits for
@@ -42,7 +45,7 @@ function statusFieldMB(pid: number, field: 'VmHWM' | 'VmRSS'): number {
 export async function startApiProcess(extraEnv: Record<string, string> = {}): Promise<ApiProcess> {
   const port = await freePort();
   const url = `http://127.0.0.1:${port}`;
-  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'apps/api/src/server.ts'], {
+  const child: ChildProcess = spawn(process.execPath, [...nodeFlags(), '--import', 'tsx', 'apps/api/src/server.ts'], {
     cwd: repoRoot,
     env: {
       ...process.env,
