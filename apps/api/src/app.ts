@@ -1,5 +1,3 @@
-import { existsSync } from 'node:fs';
-import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import compression from 'compression';
 import express from 'express';
@@ -8,6 +6,7 @@ import { pinoHttp } from 'pino-http';
 import type { AppContext } from './context';
 import { errorMiddleware, notFoundHandler } from './http/error-middleware';
 import { readRevisionOnWrite } from './http/read-revision';
+import { serveWebApp } from './http/web-app';
 import { healthRoutes } from './modules/health/routes';
 import { originCheck } from './access/origin-check';
 import { sessionMiddleware } from './access/session-middleware';
@@ -100,18 +99,4 @@ export function createApp(ctx: AppContext): express.Express {
   serveWebApp(app, ctx.config.WEB_DIST_DIR);
   app.use(errorMiddleware);
   return app;
-}
-
-/** Serves the built web app; unknown paths get index.html so the client router can answer. */
-function serveWebApp(app: express.Express, distDir: string | undefined): void {
-  if (!distDir || !existsSync(path.join(distDir, 'index.html'))) return;
-  app.use(
-    '/assets',
-    express.static(path.join(distDir, 'assets'), { immutable: true, maxAge: '365d', fallthrough: false }),
-  );
-  app.use(express.static(distDir, { index: false, maxAge: '1h' }));
-  app.get(/^(?!\/api\/).*/, (_req, res) => {
-    res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(path.join(distDir, 'index.html'));
-  });
 }

@@ -1,8 +1,8 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 
 export const serviceNames = ['database', 'storage', 'mail'] as const;
 export const serviceStatus = z.enum(['up', 'down']);
-export const serviceReport = z.object({ status: serviceStatus, latencyMs: z.number(), detail: z.string().optional() });
+export const serviceReport = z.object({ status: serviceStatus, latencyMs: z.number(), detail: z.optional(z.string()) });
 
 /** GET /api/health: 200 when every service answers, 503 with the same body when one does not. */
 export const healthReport = z.object({

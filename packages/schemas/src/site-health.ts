@@ -1,4 +1,4 @@
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { workOrderStates } from './work-orders';
 
 // Contracts for what the readings mean for a site: lost correction, reached PF, resonance,
@@ -22,8 +22,8 @@ export const stepHealth = z.object({
   effectiveKvar: z.number(),
   effectivePct: z.number(),
   bands: bandCounts,
-  tuning: z
-    .object({
+  tuning: z.nullable(
+    z.object({
       designTuningHz: z.number(),
       tuningHz: z.number(),
       shiftPct: z.number(),
@@ -33,8 +33,8 @@ export const stepHealth = z.object({
       fifthHarmonicHz: z.number(),
       tuningShifted: z.boolean(),
       nearHarmonic: z.boolean(),
-    })
-    .nullable(),
+    }),
+  ),
   reasons: z.array(z.string()),
 });
 
@@ -59,7 +59,7 @@ export const siteFlag = z.object({
   targetId: z.number(),
   message: z.string(),
   state: z.enum(['open', 'in-hand']),
-  correctiveOrderId: z.number().nullable(),
+  correctiveOrderId: z.nullable(z.number()),
   raisedAt: z.string(),
 });
 
@@ -67,7 +67,7 @@ export const bankHealth = z.object({
   id: z.number(),
   name: z.string(),
   detuned: z.boolean(),
-  detuningFactor: z.number().nullable(),
+  detuningFactor: z.nullable(z.number()),
   installedKvar: z.number(),
   effectiveKvar: z.number(),
   steps: z.array(stepHealth),
@@ -87,24 +87,24 @@ export const siteHealth = z.object({
   lostPct: z.number(),
   bands: bandCounts,
   /** Where the load came from: the latest controller reading, the planner's entry, or nowhere. */
-  load: z
-    .object({
+  load: z.nullable(
+    z.object({
       source: z.enum(['controller-reading', 'planned-load']),
       kw: z.number(),
       loadKvar: z.number(),
       loadPf: z.number(),
-      recordedAt: z.string().nullable(),
+      recordedAt: z.nullable(z.string()),
       note: z.string(),
-    })
-    .nullable(),
-  reachedPf: z.number().nullable(),
-  leading: z.boolean().nullable(),
-  requiredKvar: z.number().nullable(),
-  missingKvar: z.number().nullable(),
-  targetMet: z.boolean().nullable(),
-  triangle: z.object({ asInstalled: triangle, now: triangle }).nullable(),
-  cost: z
-    .object({
+    }),
+  ),
+  reachedPf: z.nullable(z.number()),
+  leading: z.nullable(z.boolean()),
+  requiredKvar: z.nullable(z.number()),
+  missingKvar: z.nullable(z.number()),
+  targetMet: z.nullable(z.boolean()),
+  triangle: z.nullable(z.object({ asInstalled: triangle, now: triangle })),
+  cost: z.nullable(
+    z.object({
       estimate: z.literal(true),
       currency: z.string(),
       pricePerKvarh: z.number(),
@@ -113,11 +113,11 @@ export const siteHealth = z.object({
       extraKvarhPerMonth: z.number(),
       lostMonthlyCost: z.number(),
       assumptions: z.array(z.string()),
-    })
-    .nullable(),
+    }),
+  ),
   banks: z.array(bankHealth),
   /** When the newest reading these figures rest on was taken (a unit's latest evaluation or the controller reading), or null before any. */
-  newestReadingAt: z.string().nullable(),
+  newestReadingAt: z.nullable(z.string()),
   /** The site's flags not yet cleared, newest first. */
   openFlags: z.array(siteFlag),
   /** The site's orders past their due date and neither sealed nor withdrawn, oldest due first. */
@@ -127,7 +127,7 @@ export const siteHealth = z.object({
 export type SiteHealth = z.infer<typeof siteHealth>;
 
 export const siteHealthQuery = z.object({
-  hoursPerMonth: z.coerce.number().min(1, 'At least 1 hour').max(744, 'At most 744 hours in a month').default(500),
+  hoursPerMonth: z._default(z.coerce.number().check(z.gte(1, 'At least 1 hour'), z.lte(744, 'At most 744 hours in a month')), 500),
 });
 
 

@@ -1,5 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
-import { ZodError } from 'zod';
+import { z } from 'zod';
 import { AppError, errorStatus } from './app-error';
 
 const databaseDownCodes = new Set([
@@ -28,7 +28,7 @@ function causeCode(error: unknown): string | undefined {
 }
 
 /** Turns a ZodError into `{ "a.b": "message" }` keyed by the field's path. */
-export function fieldMessages(error: ZodError): Record<string, string> {
+export function fieldMessages(error: z.core.$ZodError): Record<string, string> {
   const fields: Record<string, string> = {};
   for (const issue of error.issues) {
     const key = issue.path.length ? issue.path.join('.') : '_';
@@ -57,7 +57,8 @@ export const errorMiddleware: ErrorRequestHandler = (error: unknown, req, res, _
       ...(error.fields ? { fields: error.fields } : {}),
     };
     if (error.retryAfterSeconds !== undefined) res.setHeader('Retry-After', String(error.retryAfterSeconds));
-  } else if (error instanceof ZodError) {
+  } else if (error instanceof z.core.$ZodError) {
+    // Classic zod's ZodError and zod/mini's (a shared schema's own parse) alike.
     status = 400;
     body = { code: 'invalid', message: 'Some fields are not valid.', fields: fieldMessages(error) };
   } else if (isBodyParserError(error)) {

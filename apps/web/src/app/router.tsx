@@ -34,9 +34,10 @@ const pageRoute = (path: string, load: () => Promise<RouteModule>, page: PageMap
   lazy: () => load().then(page),
 });
 
-export function createAppRouter(queryClient: QueryClient) {
+/** Every route of the app (public/page-modules.json names each page's module for the API's preload hints). */
+export function appRoutes(queryClient: QueryClient): RouteObject[] {
   const page = toRoute(queryClient);
-  return createBrowserRouter([
+  return [
     {
       path: paths.home.path,
       Component: AppShell,
@@ -76,7 +77,11 @@ export function createAppRouter(queryClient: QueryClient) {
         pageRoute('*', () => import('./routes/not-found'), page),
       ],
     },
-  ]);
+  ];
+}
+
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter(appRoutes(queryClient));
 }
 
 export function AppRouter() {

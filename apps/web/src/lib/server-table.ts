@@ -1,5 +1,5 @@
 import type { SortingState } from '@tanstack/react-table';
-import type { z } from 'zod';
+import type * as z from 'zod/mini';
 
 /**
  * Server-side tables keep their state (page, pageSize, sort, filters) in the URL. These read the
@@ -11,7 +11,7 @@ import type { z } from 'zod';
  * Reads a list's state from URL search parameters with the endpoint's query schema. A value the
  * schema refuses (a typo, an old link) falls back to its default instead of failing the page.
  */
-export function readListSearch<S extends z.ZodType<object>>(schema: S, params: URLSearchParams, keys: readonly string[]): z.output<S> {
+export function readListSearch<S extends z.ZodMiniType<object>>(schema: S, params: URLSearchParams, keys: readonly string[]): z.output<S> {
   const raw: Record<string, string> = {};
   for (const key of keys) {
     const value = params.get(key)?.trim();

@@ -14,12 +14,13 @@ function orderIdOf(value: string | undefined): number {
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ request, params }: LoaderFunctionArgs) => {
-    await requirePermission(queryClient, request, 'work-orders:perform');
-    const id = orderIdOf(params.id);
-    // The walk's forms load beside the order's data: awaited when the walk shows at once (no
-    // placeholder that the forms would push down), otherwise ready by the time the card is read.
+    // The walk's forms load beside the session and the order's data: awaited when the walk shows
+    // at once (no placeholder that the forms would push down), otherwise ready by the time the
+    // card is read.
     const walkForms = loadWalkForms();
     walkForms.catch(() => undefined); // not awaited below: a failure shows when the walk is opened
+    await requirePermission(queryClient, request, 'work-orders:perform');
+    const id = orderIdOf(params.id);
     let order;
     try {
       order = await queryClient.ensureQueryData(fieldQueries.order(id));

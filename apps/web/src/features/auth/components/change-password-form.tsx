@@ -1,21 +1,21 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation } from '@tanstack/react-query';
 import { changePasswordRequest } from '@varden/schemas';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { Button } from '../../../components/button';
 import { FormAlert, FormSuccess } from '../../../components/form/form-alert';
 import { PasswordField } from '../../../components/form/password-field';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import { changePassword } from '../api/auth-requests';
 import { characterCount } from '../lib/character-count';
 import { PasswordPolicy } from './password-policy';
 
 /** The shared change-password contract plus the new password typed a second time. */
-const changePasswordForm = changePasswordRequest
-  .extend({ repeat: z.string() })
-  .refine((values) => values.newPassword === values.repeat, { path: ['repeat'], message: 'The two new passwords are not the same' });
+const changePasswordForm = z
+  .extend(changePasswordRequest, { repeat: z.string() })
+  .check(z.refine((values) => values.newPassword === values.repeat, { path: ['repeat'], error: 'The two new passwords are not the same' }));
 
 const empty = { currentPassword: '', newPassword: '', repeat: '' };
 

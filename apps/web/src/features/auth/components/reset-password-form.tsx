@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation } from '@tanstack/react-query';
 import { passwordResetRequest } from '@varden/schemas';
 import { useState } from 'react';
@@ -9,6 +8,7 @@ import { FormAlert, FormSuccess } from '../../../components/form/form-alert';
 import { TextField } from '../../../components/form/text-field';
 import { paths } from '../../../config/paths';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import { requestPasswordReset } from '../api/auth-requests';
 
 /**

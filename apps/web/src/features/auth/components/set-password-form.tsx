@@ -1,16 +1,16 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { newPassword, type TokenPurpose } from '@varden/schemas';
 import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { Link, useNavigate } from 'react-router-dom';
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { Button } from '../../../components/button';
 import { FormAlert } from '../../../components/form/form-alert';
 import { PasswordField } from '../../../components/form/password-field';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import { setPassword } from '../api/auth-requests';
 import { session } from '../api/session-queries';
 import { characterCount } from '../lib/character-count';
@@ -20,7 +20,7 @@ import { PasswordPolicy } from './password-policy';
 /** The shared password rule, typed twice. The token comes from the link, not the form. */
 const setPasswordForm = z
   .object({ password: newPassword, repeat: z.string() })
-  .refine((values) => values.password === values.repeat, { path: ['repeat'], message: 'The two passwords are not the same' });
+  .check(z.refine((values) => values.password === values.repeat, { path: ['repeat'], error: 'The two passwords are not the same' }));
 
 type SetPasswordFormProps = { token: string; purpose: TokenPurpose };
 

@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { signInRequest } from '@varden/schemas';
 import { useState } from 'react';
@@ -10,6 +9,7 @@ import { PasswordField } from '../../../components/form/password-field';
 import { TextField } from '../../../components/form/text-field';
 import { paths } from '../../../config/paths';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import { signIn } from '../api/auth-requests';
 import { destinationAfterSignIn } from '../lib/route-guards';
 import { replaceSession } from '../lib/session-cache';

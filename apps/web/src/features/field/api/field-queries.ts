@@ -33,21 +33,21 @@ export function fetchMyOrders(signal?: AbortSignal): Promise<OrderList> {
   const search = new URLSearchParams({ assigneeId: 'me', state: fieldStates.join(','), sort: 'dueOn', pageSize: '100' });
   return withOfflineCopy(
     'my-orders',
-    () => apiRequest(`/api/work-orders?${search.toString()}`, { parse: orderList.parse, ...(signal ? { signal } : {}) }),
-    orderList.parse,
+    () => apiRequest(`/api/work-orders?${search.toString()}`, { parse: (json) => orderList.parse(json), ...(signal ? { signal } : {}) }),
+    (json) => orderList.parse(json),
   );
 }
 
 export function fetchFieldOrder(id: number, signal?: AbortSignal): Promise<WorkOrderDetail> {
   return withOfflineCopy(
     `order:${id}`,
-    () => apiRequest(`/api/work-orders/${id}`, { parse: workOrderDetail.parse, ...(signal ? { signal } : {}) }),
-    workOrderDetail.parse,
+    () => apiRequest(`/api/work-orders/${id}`, { parse: (json) => workOrderDetail.parse(json), ...(signal ? { signal } : {}) }),
+    (json) => workOrderDetail.parse(json),
   );
 }
 
 export function transitionOrder({ id, to, version, comment = '' }: { id: number; to: WorkOrderState; version: number; comment?: string }): Promise<WorkOrder> {
-  return apiRequest(`/api/work-orders/${id}/transitions`, { method: 'POST', body: { to, version, comment }, parse: workOrder.parse });
+  return apiRequest(`/api/work-orders/${id}/transitions`, { method: 'POST', body: { to, version, comment }, parse: (json) => workOrder.parse(json) });
 }
 
 /** Query factory of the technician's side of work orders. */

@@ -1,4 +1,6 @@
 import { readingInput, type ReadingInput } from '@varden/schemas';
+// zod's English messages for a check without a message of its own, before the first reading is checked.
+import '../../../lib/schema-messages';
 import type { OutboxItem } from './outbox-types';
 import { fieldOutbox } from './use-field-outbox';
 

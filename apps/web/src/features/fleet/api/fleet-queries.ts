@@ -12,12 +12,12 @@ export function hoursPerMonthOf(search: URLSearchParams): number {
 }
 
 export function fetchFleetOverview(signal?: AbortSignal): Promise<FleetOverview> {
-  return apiRequest('/api/fleet', { parse: fleetOverview.parse, ...(signal ? { signal } : {}) });
+  return apiRequest('/api/fleet', { parse: (json) => fleetOverview.parse(json), ...(signal ? { signal } : {}) });
 }
 
 export function fetchSiteHealth(siteId: number, hoursPerMonth: number, signal?: AbortSignal): Promise<SiteHealth> {
   const query = hoursPerMonth === defaultHoursPerMonth ? '' : `?hoursPerMonth=${encodeURIComponent(hoursPerMonth)}`;
-  return apiRequest(`/api/sites/${siteId}/health${query}`, { parse: siteHealth.parse, ...(signal ? { signal } : {}) });
+  return apiRequest(`/api/sites/${siteId}/health${query}`, { parse: (json) => siteHealth.parse(json), ...(signal ? { signal } : {}) });
 }
 
 /** The CSV of the fleet table, straight from the API (a download, not a query). */

@@ -13,7 +13,7 @@ export type BankUpdate = z.input<typeof bankUpdate>;
 const bankList = listResponse(bank);
 
 export function fetchBanks(params: BankListParams, signal?: AbortSignal): Promise<Page<Bank>> {
-  return apiRequest(`/api/banks${searchOf(params)}`, { parse: bankList.parse, ...(signal ? { signal } : {}) });
+  return apiRequest(`/api/banks${searchOf(params)}`, { parse: (json) => bankList.parse(json), ...(signal ? { signal } : {}) });
 }
 
 export function fetchAllBanks(params: Omit<BankListParams, 'page' | 'pageSize'>): Promise<Page<Bank>> {
@@ -21,15 +21,15 @@ export function fetchAllBanks(params: Omit<BankListParams, 'page' | 'pageSize'>)
 }
 
 export function fetchBank(id: number, signal?: AbortSignal): Promise<Bank> {
-  return apiRequest(`/api/banks/${id}`, { parse: bank.parse, ...(signal ? { signal } : {}) });
+  return apiRequest(`/api/banks/${id}`, { parse: (json) => bank.parse(json), ...(signal ? { signal } : {}) });
 }
 
 export function createBank(body: BankCreate): Promise<Bank> {
-  return apiRequest('/api/banks', { method: 'POST', body, parse: bank.parse });
+  return apiRequest('/api/banks', { method: 'POST', body, parse: (json) => bank.parse(json) });
 }
 
 export function updateBank({ id, body }: { id: number; body: BankUpdate }): Promise<Bank> {
-  return apiRequest(`/api/banks/${id}`, { method: 'PATCH', body, parse: bank.parse });
+  return apiRequest(`/api/banks/${id}`, { method: 'PATCH', body, parse: (json) => bank.parse(json) });
 }
 
 export function deleteBank(id: number): Promise<void> {

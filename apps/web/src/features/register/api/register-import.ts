@@ -1,6 +1,6 @@
 import { mutationOptions, type QueryClient } from '@tanstack/react-query';
 import { registerImportResponse, registerImportRow, type RegisterImportResponse } from '@varden/schemas';
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { apiRequest } from '../../../lib/api-client';
 import { bankQueries } from './bank-queries';
 import { stepQueries } from './step-queries';
@@ -14,10 +14,10 @@ const importRefusal = z.object({
   error: z.object({
     code: z.string(),
     message: z.string(),
-    fields: z.record(z.string(), z.string()).optional(),
-    rows: z.array(registerImportRow).optional(),
-    missingColumns: z.array(z.string()).optional(),
-    ignoredColumns: z.array(z.string()).optional(),
+    fields: z.optional(z.record(z.string(), z.string())),
+    rows: z.optional(z.array(registerImportRow)),
+    missingColumns: z.optional(z.array(z.string())),
+    ignoredColumns: z.optional(z.array(z.string())),
   }),
 });
 

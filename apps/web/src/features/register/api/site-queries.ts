@@ -11,11 +11,11 @@ export type SiteListParams = ListParams<SiteSort>;
 const siteList = listResponse(site);
 
 export function fetchSites(params: SiteListParams, signal?: AbortSignal): Promise<Page<Site>> {
-  return apiRequest(`/api/sites${searchOf(params)}`, { parse: siteList.parse, ...(signal ? { signal } : {}) });
+  return apiRequest(`/api/sites${searchOf(params)}`, { parse: (json) => siteList.parse(json), ...(signal ? { signal } : {}) });
 }
 
 export function fetchSite(id: number, signal?: AbortSignal): Promise<Site> {
-  return apiRequest(`/api/sites/${id}`, { parse: site.parse, ...(signal ? { signal } : {}) });
+  return apiRequest(`/api/sites/${id}`, { parse: (json) => site.parse(json), ...(signal ? { signal } : {}) });
 }
 
 /** Every site matching the filter, whatever the page size: for the CSV export. */
@@ -24,11 +24,11 @@ export function fetchAllSites(params: Omit<SiteListParams, 'page' | 'pageSize'>)
 }
 
 export function createSite(body: SiteCreate): Promise<Site> {
-  return apiRequest('/api/sites', { method: 'POST', body, parse: site.parse });
+  return apiRequest('/api/sites', { method: 'POST', body, parse: (json) => site.parse(json) });
 }
 
 export function updateSite({ id, body }: { id: number; body: SiteUpdate }): Promise<Site> {
-  return apiRequest(`/api/sites/${id}`, { method: 'PATCH', body, parse: site.parse });
+  return apiRequest(`/api/sites/${id}`, { method: 'PATCH', body, parse: (json) => site.parse(json) });
 }
 
 export function deleteSite(id: number): Promise<void> {

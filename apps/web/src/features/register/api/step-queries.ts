@@ -15,22 +15,22 @@ const stepList = listResponse(step);
 export function fetchStepsOfBank(bankId: number, signal?: AbortSignal): Promise<Page<Step>> {
   return fetchAllPages((page, pageSize) =>
     apiRequest(`/api/steps${searchOf({ bankId, page, pageSize, sort: 'number' })}`, {
-      parse: stepList.parse,
+      parse: (json) => stepList.parse(json),
       ...(signal ? { signal } : {}),
     }),
   );
 }
 
 export function fetchStep(id: number, signal?: AbortSignal): Promise<Step> {
-  return apiRequest(`/api/steps/${id}`, { parse: step.parse, ...(signal ? { signal } : {}) });
+  return apiRequest(`/api/steps/${id}`, { parse: (json) => step.parse(json), ...(signal ? { signal } : {}) });
 }
 
 export function createStep(body: StepCreate): Promise<Step> {
-  return apiRequest('/api/steps', { method: 'POST', body, parse: step.parse });
+  return apiRequest('/api/steps', { method: 'POST', body, parse: (json) => step.parse(json) });
 }
 
 export function updateStep({ id, body }: { id: number; body: StepUpdate }): Promise<Step> {
-  return apiRequest(`/api/steps/${id}`, { method: 'PATCH', body, parse: step.parse });
+  return apiRequest(`/api/steps/${id}`, { method: 'PATCH', body, parse: (json) => step.parse(json) });
 }
 
 export function deleteStep(id: number): Promise<void> {

@@ -1,6 +1,6 @@
 import { mutationOptions, queryOptions, type QueryClient } from '@tanstack/react-query';
 import { listResponse, unit, unitReading, type Unit, type UnitCreate, type UnitReading, type unitReplace, type unitUpdate } from '@varden/schemas';
-import { z } from 'zod';
+import * as z from 'zod/mini';
 import { apiRequest } from '../../../lib/api-client';
 import { fetchAllPages, searchOf, type Page } from './list-params';
 import { registerKey } from './register-keys';
@@ -29,7 +29,7 @@ export function fetchUnits(scope: UnitScope, signal?: AbortSignal): Promise<Page
         page,
         pageSize,
       })}`,
-      { parse: unitList.parse, ...(signal ? { signal } : {}) },
+      { parse: (json) => unitList.parse(json), ...(signal ? { signal } : {}) },
     ),
   );
 }
@@ -38,26 +38,26 @@ export function fetchUnits(scope: UnitScope, signal?: AbortSignal): Promise<Page
 export function fetchUnitReadings(id: number, signal?: AbortSignal): Promise<Page<UnitReading>> {
   return fetchAllPages((page, pageSize) =>
     apiRequest(`/api/capacitor-units/${id}/readings${searchOf({ sort: '-recordedAt', page, pageSize })}`, {
-      parse: unitReadingList.parse,
+      parse: (json) => unitReadingList.parse(json),
       ...(signal ? { signal } : {}),
     }),
   );
 }
 
 export function fetchUnit(id: number, signal?: AbortSignal): Promise<Unit> {
-  return apiRequest(`/api/capacitor-units/${id}`, { parse: unit.parse, ...(signal ? { signal } : {}) });
+  return apiRequest(`/api/capacitor-units/${id}`, { parse: (json) => unit.parse(json), ...(signal ? { signal } : {}) });
 }
 
 export function createUnit(body: UnitCreate): Promise<Unit> {
-  return apiRequest('/api/capacitor-units', { method: 'POST', body, parse: unit.parse });
+  return apiRequest('/api/capacitor-units', { method: 'POST', body, parse: (json) => unit.parse(json) });
 }
 
 export function updateUnit({ id, body }: { id: number; body: UnitUpdate }): Promise<Unit> {
-  return apiRequest(`/api/capacitor-units/${id}`, { method: 'PATCH', body, parse: unit.parse });
+  return apiRequest(`/api/capacitor-units/${id}`, { method: 'PATCH', body, parse: (json) => unit.parse(json) });
 }
 
 export function replaceUnit({ id, body }: { id: number; body: UnitReplace }): Promise<UnitReplacement> {
-  return apiRequest(`/api/capacitor-units/${id}/replacement`, { method: 'POST', body, parse: unitReplacement.parse });
+  return apiRequest(`/api/capacitor-units/${id}/replacement`, { method: 'POST', body, parse: (json) => unitReplacement.parse(json) });
 }
 
 export const unitQueries = {

@@ -1,9 +1,9 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { bankCreate, type Bank, type BankCreate } from '@varden/schemas';
 import { useState, type ReactNode } from 'react';
 import { useForm, useWatch, type DefaultValues } from 'react-hook-form';
 import type { z } from 'zod';
+import { zodResolver } from '../../../lib/schema-messages';
 import { bankMutations } from '../api/bank-queries';
 import { CheckboxField, DateField, FieldGroup, NumberField, TextField } from './form-field';
 import { FormActions } from './form-actions';

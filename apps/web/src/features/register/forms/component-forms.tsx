@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { contactorCreate, fuseSetCreate, reactorCreate } from '@varden/schemas';
 import { useState, type ReactNode } from 'react';
@@ -11,6 +10,7 @@ import {
   type FuseSet,
   type Reactor,
 } from '../api/component-queries';
+import { zodResolver } from '../../../lib/schema-messages';
 import { DateField, NumberField, TextField } from './form-field';
 import { FormActions } from './form-actions';
 import { asNullableText, asNumber } from './form-values';

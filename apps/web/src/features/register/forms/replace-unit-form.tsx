@@ -1,9 +1,9 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { unitReplace, type Unit } from '@varden/schemas';
 import { useState, type ReactNode } from 'react';
 import { FormProvider, useForm, type DefaultValues } from 'react-hook-form';
 import type { z } from 'zod';
+import { zodResolver } from '../../../lib/schema-messages';
 import { unitMutations, type UnitReplace, type UnitReplacement } from '../api/unit-queries';
 import { DateField, FieldGroup, TextField } from './form-field';
 import { FormActions } from './form-actions';

@@ -1,9 +1,9 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { siteCreate, type Site, type SiteCreate } from '@varden/schemas';
 import { useState, type ReactNode } from 'react';
 import { useForm, useWatch, type DefaultValues } from 'react-hook-form';
 import type { z } from 'zod';
+import { zodResolver } from '../../../lib/schema-messages';
 import { siteMutations } from '../api/site-queries';
 import { FormActions } from './form-actions';
 import { FieldGroup, NumberField, SelectField, TextField } from './form-field';

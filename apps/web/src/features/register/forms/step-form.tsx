@@ -1,9 +1,9 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { stepCreate, type Step } from '@varden/schemas';
 import { useState, type ReactNode } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { zodResolver } from '../../../lib/schema-messages';
 import { stepMutations, type StepCreate } from '../api/step-queries';
 import { NumberField } from './form-field';
 import { FormActions } from './form-actions';

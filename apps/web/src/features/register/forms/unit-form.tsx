@@ -1,9 +1,9 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { unitCreate, type Site, type Unit, type UnitCreate } from '@varden/schemas';
 import { useState, type ReactNode } from 'react';
 import { FormProvider, useForm, type DefaultValues } from 'react-hook-form';
 import type { z } from 'zod';
+import { zodResolver } from '../../../lib/schema-messages';
 import { unitMutations } from '../api/unit-queries';
 import { FormActions } from './form-actions';
 import { applyServerErrors, type FormFailure } from './server-errors';

@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { invitationCreate } from '@varden/schemas';
 import { useState } from 'react';
@@ -9,6 +8,7 @@ import { FormAlert } from '../../../components/form/form-alert';
 import { TextField } from '../../../components/form/text-field';
 import { paths } from '../../../config/paths';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import type { LocationNotice } from '../../auth/lib/location-notice';
 import { auditLog } from '../api/audit-log-queries';
 import { users } from '../api/user-queries';

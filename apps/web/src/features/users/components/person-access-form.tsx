@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { userUpdate, type User, type UserUpdate } from '@varden/schemas';
 import { useState } from 'react';
@@ -8,6 +7,7 @@ import { Button } from '../../../components/button';
 import { FormAlert, FormSuccess } from '../../../components/form/form-alert';
 import { TextField } from '../../../components/form/text-field';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import { session } from '../../auth/api/session-queries';
 import { auditLog } from '../api/audit-log-queries';
 import { users } from '../api/user-queries';

@@ -1,6 +1,6 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { createColumnHelper } from '@tanstack/react-table';
-import { flagListQuery, flagStates, type Flag, type WorkOrder } from '@varden/schemas';
+import { flagSorts, flagStates, type Flag, type WorkOrder } from '@varden/schemas';
 import { useId, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '../../../components/button';
@@ -18,7 +18,7 @@ import { paths } from '../../../config/paths';
 import { FlagKind, Severity } from './flag-mark';
 
 const column = createColumnHelper<Flag>();
-const sorts = flagListQuery.shape.sort.unwrap().options;
+const sorts = flagSorts;
 const stateWords: Record<(typeof flagStates)[number], string> = { open: 'Open', 'in-hand': 'In hand', cleared: 'Cleared' };
 
 function Raised({ at }: { at: string }) {

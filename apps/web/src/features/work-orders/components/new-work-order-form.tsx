@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { checklistItems, priorities, workOrderCreate, workOrderKinds, type WorkOrder, type WorkOrderCreate, type WorkOrderKind } from '@varden/schemas';
 import { useState, type ReactNode } from 'react';
@@ -10,6 +9,7 @@ import { FormAlert } from '../../../components/form/form-alert';
 import { TextField } from '../../../components/form/text-field';
 import { applyFieldErrors } from '../../../lib/form-errors';
 import { pushNotice } from '../../../lib/notices';
+import { zodResolver } from '../../../lib/schema-messages';
 import { technicians } from '../api/technician-queries';
 import { workOrderMutations } from '../api/work-order-queries';
 import { defaultChecklists } from '../lib/default-checklists';

@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { priorities, workOrderUpdate, type WorkOrder } from '@varden/schemas';
 import { useState } from 'react';
@@ -8,6 +7,7 @@ import { Button } from '../../../components/button';
 import { FormAlert, FormSuccess } from '../../../components/form/form-alert';
 import { TextField } from '../../../components/form/text-field';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import { technicians } from '../api/technician-queries';
 import { workOrderMutations, type WorkOrderUpdate } from '../api/work-order-queries';
 import { formatCalendarDate } from '../lib/calendar-date';

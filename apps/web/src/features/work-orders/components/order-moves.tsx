@@ -1,12 +1,12 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { workOrderTransitionRequest, type WorkOrder, type WorkOrderState } from '@varden/schemas';
 import { useState } from 'react';
 import { useForm, type Path } from 'react-hook-form';
-import type { z } from 'zod';
+import * as z from 'zod/mini';
 import { Button, type ButtonVariant } from '../../../components/button';
 import { FormAlert } from '../../../components/form/form-alert';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import { technicians } from '../api/technician-queries';
 import { workOrderMutations, type TransitionRequest } from '../api/work-order-queries';
 import { SelectField, TextAreaField } from './form-controls';
@@ -19,7 +19,7 @@ const fieldNames = ['comment', 'assigneeId', 'signatureMeaning'] as Array<Path<M
 /** The shared request schema, with the reason the API requires for some moves asked for here too. */
 export function moveSchema(needsReason: string | undefined) {
   if (!needsReason) return workOrderTransitionRequest;
-  return workOrderTransitionRequest.refine((v) => v.comment.trim() !== '', { path: ['comment'], message: needsReason });
+  return workOrderTransitionRequest.check(z.refine((v) => v.comment.trim() !== '', { path: ['comment'], error: needsReason }));
 }
 
 type MoveFormProps = {

@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { checklistItems, inspectionPlanCreate, type InspectionPlan } from '@varden/schemas';
 import { useState, type ReactNode } from 'react';
@@ -10,6 +9,7 @@ import { FormAlert } from '../../../components/form/form-alert';
 import { TextField } from '../../../components/form/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { applyFieldErrors } from '../../../lib/form-errors';
+import { zodResolver } from '../../../lib/schema-messages';
 import { planMutations, plans, type PlanCreate } from '../api/plan-queries';
 import { defaultChecklists } from '../lib/default-checklists';
 import { addDays, localToday } from '../lib/month-grid';

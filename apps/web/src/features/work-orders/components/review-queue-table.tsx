@@ -1,5 +1,5 @@
 import { createColumnHelper } from '@tanstack/react-table';
-import { workOrderListQuery, type WorkOrder } from '@varden/schemas';
+import { workOrderSorts, type WorkOrder } from '@varden/schemas';
 import { Link } from 'react-router-dom';
 import { buttonClassName } from '../../../components/button';
 import { DataTable } from '../../../components/data-table';
@@ -12,7 +12,7 @@ import { paths } from '../../../config/paths';
 import { DueDate } from './work-order-table';
 
 const column = createColumnHelper<WorkOrder>();
-const sorts = workOrderListQuery.shape.sort.unwrap().options;
+const sorts = workOrderSorts;
 
 function Submitted({ at }: { at: string | null }) {
   return at ? (

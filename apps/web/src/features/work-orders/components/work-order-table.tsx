@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { createColumnHelper } from '@tanstack/react-table';
-import { workOrderKinds, workOrderListQuery, workOrderStates, type WorkOrder } from '@varden/schemas';
+import { workOrderKinds, workOrderSorts, workOrderStates, type WorkOrder } from '@varden/schemas';
 import { useId, useRef, useState, type FormEvent, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { DataTable } from '../../../components/data-table';
@@ -18,7 +18,7 @@ import { OverdueMark, StateMark } from './state-mark';
 
 const column = createColumnHelper<WorkOrder>();
 
-const sorts = workOrderListQuery.shape.sort.unwrap().options;
+const sorts = workOrderSorts;
 
 export function DueDate({ order }: { order: Pick<WorkOrder, 'dueOn' | 'overdue'> }) {
   return (
