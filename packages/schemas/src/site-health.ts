@@ -148,6 +148,7 @@ export const fleetSite = z.object({
 export const fleetOverview = z.object({
   sites: z.array(fleetSite),
   totals: bandCounts,
+  /** The 100 soonest replacements within 12 months (each site row counts all of its own). */
   projectedReplacements: z.array(
     z.object({
       unitId: z.number(),
@@ -164,6 +165,7 @@ export const fleetOverview = z.object({
       latestDeviationPct: z.number(),
     }),
   ),
+  /** The 100 longest overdue orders (each site row counts all of its own). */
   overdueOrders: z.array(z.object({ id: z.number(), title: z.string(), siteId: z.number(), siteName: z.string(), dueOn: z.string(), state: z.enum(workOrderStates) })),
 });
 export type FleetOverview = z.infer<typeof fleetOverview>;
