@@ -7,19 +7,21 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { serveWebApp } from './web-app';
 
 // A build as Vite makes it: index.html preloading the entry's own imports, the manifest, and the
-// web's page table. The order page shares a chunk with the entry and has one of its own.
+// web's page table. The order page shares a chunk with the entry, has one of its own, and its
+// loader starts a lazy one at once.
 const manifest = {
   'index.html': { file: 'assets/index-E1.js', isEntry: true, imports: ['_common-C1.js'], dynamicImports: ['src/app/routes/field/order-page.tsx', 'src/app/routes/sign-in.tsx'] },
   '_common-C1.js': { file: 'assets/common-C1.js' },
   '_sync-state-S1.js': { file: 'assets/sync-state-S1.js', imports: ['_common-C1.js'] },
   'src/app/routes/field/order-page.tsx': { file: 'assets/order-page-O1.js', imports: ['_common-C1.js', '_sync-state-S1.js'], dynamicImports: ['_walk-W1.js'] },
-  '_walk-W1.js': { file: 'assets/walk-W1.js' },
+  '_walk-W1.js': { file: 'assets/walk-W1.js', imports: ['_forms-F1.js', '_common-C1.js'] },
+  '_forms-F1.js': { file: 'assets/forms-F1.js' },
   'src/app/routes/sign-in.tsx': { file: 'assets/sign-in-I1.js', imports: ['_common-C1.js'], css: ['assets/sign-in.css'] },
   'src/app/routes/work-orders/new-work-order-page.tsx': { file: 'assets/new-order-N1.js' },
   'src/app/routes/work-orders/work-order-page.tsx': { file: 'assets/order-D1.js' },
 };
 const pages = [
-  { path: '/field/orders/:id', module: 'src/app/routes/field/order-page.tsx', data: ['/api/work-orders/:id'] },
+  { path: '/field/orders/:id', module: 'src/app/routes/field/order-page.tsx', lazy: ['_walk-W1.js'], data: ['/api/work-orders/:id'] },
   { path: '/sign-in', module: 'src/app/routes/sign-in.tsx' },
   { path: '/work-orders/:orderId', module: 'src/app/routes/work-orders/work-order-page.tsx' },
   { path: '/work-orders/new', module: 'src/app/routes/work-orders/new-work-order-page.tsx' },
@@ -60,8 +62,8 @@ const preloadsOf = async (pathname: string) => [...(await pageOf(pathname)).matc
 const fetchPreloadsOf = async (pathname: string) => [...(await pageOf(pathname)).matchAll(/<link rel="preload" as="fetch" crossorigin href="([^"]+)">/g)].map((m) => m[1]);
 
 describe("index.html with the requested page's chunks preloaded", () => {
-  it("preloads the page's chunk and its static imports, not the entry's own nor its lazy ones", async () => {
-    expect(await preloadsOf('/field/orders/42')).toEqual(['/assets/order-page-O1.js', '/assets/sync-state-S1.js']);
+  it("preloads the page's chunk, those its loader starts at once, and their static imports, not the entry's own", async () => {
+    expect(await preloadsOf('/field/orders/42')).toEqual(['/assets/order-page-O1.js', '/assets/sync-state-S1.js', '/assets/walk-W1.js', '/assets/forms-F1.js']);
     expect(await preloadsOf('/sign-in?next=%2Ftoday')).toEqual(['/assets/sign-in-I1.js']);
   });
 

@@ -5,15 +5,15 @@ import express from 'express';
 // Serves the built web app (apps/web/dist): hashed files under /assets cached for a year, and
 // index.html for every other path so the client router can answer. Into that index.html go
 // preload hints for what the requested page needs before it can draw, from Vite's build manifest
-// and the web's page table (apps/web/public/page-modules.json): the page's own chunks
-// (<link rel="modulepreload">), and the session and the page's data (<link rel="preload"
-// as="fetch">, which the app's own fetch then takes over). The browser fetches them beside the
+// and the web's page table (apps/web/public/page-modules.json): the page's own chunks and those
+// its loader starts at once (<link rel="modulepreload">), and the session and the page's data
+// (<link rel="preload" as="fetch">, which the app's own fetch then takes over). The browser fetches them beside the
 // entry chunk instead of after it has run and after one another: on a phone's slow link each
 // round trip saved is 150 ms or more before the first render.
 
 type ManifestChunk = { file: string; imports?: string[]; isEntry?: boolean };
 type Manifest = Record<string, ManifestChunk>;
-type PageModule = { path: string; module: string; data?: string[] };
+type PageModule = { path: string; module: string; lazy?: string[]; data?: string[] };
 type PageTable = { session?: string; pages: PageModule[] };
 
 /** A page's path pattern ("/field/orders/:id"), scored as React Router ranks routes: static segments first. */
@@ -51,8 +51,8 @@ const withParams = (template: string, params: Record<string, string>) =>
 
 const escapeAttribute = (value: string) => value.replace(/&/g, '&amp;').replace(/"/g, '&quot;').replace(/</g, '&lt;');
 
-/** The files a chunk loads statically, itself first, leaving out those already in `skip`. */
-function staticFiles(manifest: Manifest, key: string, skip: Set<string>): string[] {
+/** The files chunks load statically, each chunk first, leaving out those already in `skip`. */
+function staticFiles(manifest: Manifest, keys: string[], skip: Set<string>): string[] {
   const files: string[] = [];
   const seen = new Set<string>();
   const visit = (k: string) => {
@@ -63,16 +63,16 @@ function staticFiles(manifest: Manifest, key: string, skip: Set<string>): string
     if (chunk.file.endsWith('.js') && !skip.has(chunk.file)) files.push(chunk.file);
     for (const imported of chunk.imports ?? []) visit(imported);
   };
-  visit(key);
+  for (const key of keys) visit(key);
   return files;
 }
 
 type Preloads = { session: string | undefined; patterns: PagePattern[] };
 
 /**
- * Each page's preloads, from the build manifest: the page module's chunk and every chunk it
- * imports statically that the entry does not (index.html already preloads the entry's own), and
- * the API requests its loaders make at once. Without a manifest or a page table (an older build,
+ * Each page's preloads, from the build manifest: the page module's chunk, the chunks its loader
+ * starts at once, and every chunk these import statically that the entry does not (index.html
+ * already preloads the entry's own); and the API requests its loaders make at once. Without a manifest or a page table (an older build,
  * a test's stand-in) there are none.
  */
 export function pagePreloads(distDir: string): Preloads {
@@ -82,12 +82,13 @@ export function pagePreloads(distDir: string): Preloads {
   const manifest = JSON.parse(readFileSync(manifestPath, 'utf8')) as Manifest;
   const table = JSON.parse(readFileSync(pagesPath, 'utf8')) as PageTable;
   const entry = Object.keys(manifest).find((key) => manifest[key]?.isEntry);
-  const loadedByEntry = new Set(entry ? staticFiles(manifest, entry, new Set()) : []);
+  const loadedByEntry = new Set(entry ? staticFiles(manifest, [entry], new Set()) : []);
   const patterns = table.pages
     .filter((page) => manifest[page.module])
     .map((page) => {
       const segments = segmentsOf(page.path);
-      return { segments, score: scoreOf(segments), modules: staticFiles(manifest, page.module, loadedByEntry), data: page.data ?? [] };
+      const modules = staticFiles(manifest, [page.module, ...(page.lazy ?? [])], loadedByEntry);
+      return { segments, score: scoreOf(segments), modules, data: page.data ?? [] };
     })
     .sort((a, b) => b.score - a.score);
   return { session: table.session, patterns };

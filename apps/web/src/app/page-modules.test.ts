@@ -17,13 +17,13 @@ const everyone = {
 };
 
 /** The API paths a page's loaders request when it opens (first load: a fresh query client), answering the session and 404 to the rest. */
-async function requestsOf(url: string): Promise<string[]> {
+async function requestsOf(url: string, routesFor = appRoutes): Promise<string[]> {
   const requested: string[] = [];
   vi.stubGlobal('fetch', async (input: string) => {
     requested.push(input);
     return input === pageTable.session ? Response.json(everyone) : Response.json({ error: { code: 'not_found', message: 'No such record' } }, { status: 404 });
   });
-  const matched = matchRoutes(appRoutes(new QueryClient({ defaultOptions: { queries: { retry: false } } })), url) ?? [];
+  const matched = matchRoutes(routesFor(new QueryClient({ defaultOptions: { queries: { retry: false } } })), url) ?? [];
   const request = new Request(`http://localhost${url}`);
   await Promise.allSettled(
     matched.map(async ({ route, params }) => {
@@ -57,6 +57,23 @@ describe('public/page-modules.json', () => {
     const requested = await requestsOf(sampleUrl(path));
     expect(requested).toContain(pageTable.session);
     for (const template of (page as { data: string[] }).data) expect(requested).toContain(sampleUrl(template));
+  });
+
+  it.each(pageTable.pages.filter((page) => 'lazy' in page))('$path starts loading $lazy at once', async ({ path, ...page }) => {
+    const lazy = (page as { lazy: string[] }).lazy;
+    const started: string[] = [];
+    vi.resetModules();
+    for (const module of lazy) {
+      vi.doMock(`../../${module}`, async (importOriginal) => {
+        started.push(module);
+        return importOriginal();
+      });
+    }
+    // A router of its own, whose pages load afresh through the mocks.
+    const fresh = (await import('./router')) as { appRoutes: typeof appRoutes };
+    await requestsOf(sampleUrl(path), fresh.appRoutes);
+    // Started, not awaited: the order this page asks for does not exist here.
+    await vi.waitFor(() => expect(new Set(started)).toEqual(new Set(lazy)));
   });
 
   it('every page requests the session at once', async () => {
