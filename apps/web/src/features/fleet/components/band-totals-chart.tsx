@@ -1,6 +1,7 @@
 import type { SiteHealth } from '@varden/schemas';
 import { lazy, Suspense } from 'react';
 import { ConditionGlyph, conditionBandLabels, conditionBands, type ConditionBand } from '../../../components/condition-glyph';
+import { useNearView } from '../../../lib/use-near-view';
 import { formatNumber, nbsp } from '../lib/number-format';
 import { NoReadingMark, noReadingLabel } from './band-counts';
 import { ChartWithTable } from './chart-with-table';
@@ -43,14 +44,22 @@ export function bandTotalsSummary(rows: readonly Row[]): string {
 /** "Units by condition": every unit of the fleet counted by the band of its latest reading. */
 export function BandTotalsChart({ totals }: { totals: Bands }) {
   const rows = bandRows(totals);
+  // Below the sites on a phone: its code loads and draws when the reader comes near it. Until the
+  // bars are drawn, a space of their height keeps the page from moving.
+  const [area, near] = useNearView<HTMLDivElement>();
+  const space = <div className="h-[240px]" />;
   return (
     <ChartWithTable
       subject="units by condition"
       chart={(describedBy) => (
-        <div role="img" aria-label="Capacitor units by condition band" aria-describedby={describedBy} className="min-w-0">
-          <Suspense fallback={<div className="h-[240px]" />}>
-            <BandTotalsBars rows={rows} />
-          </Suspense>
+        <div ref={area} role="img" aria-label="Capacitor units by condition band" aria-describedby={describedBy} className="min-w-0">
+          {near ? (
+            <Suspense fallback={space}>
+              <BandTotalsBars rows={rows} />
+            </Suspense>
+          ) : (
+            space
+          )}
         </div>
       )}
       table={<FigureTable caption="Capacitor units by condition band" columns={columns} rows={rows} rowKey={(r) => r.key} />}
