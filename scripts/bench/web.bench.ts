@@ -4,6 +4,7 @@
 // Budgets (issue #8): technician's order route ≤ 150 KB; Lighthouse performance ≥ 90,
 // LCP ≤ 2.0 s, TBT ≤ 150 ms, CLS ≤ 0.05 on sign-in, the technician's order and the fleet dashboard.
 import { cpSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import * as chromeLauncher from 'chrome-launcher';
@@ -201,7 +202,9 @@ async function lighthouseResults(distDir: string): Promise<BenchResult[]> {
       for (const warm of [page.url, `${api.url}/api/auth/me`]) await (await fetch(warm, { headers: page.cookie ? { cookie: page.cookie } : {} })).arrayBuffer();
       const runs: LighthouseFigures[] = [];
       for (let i = 0; i < runsPerPage; i++) runs.push(await audit(chrome.port, page.url, page.cookie));
-      console.log(`web: Lighthouse ${page.name}: ${runs.map((r) => `score ${r.score.toFixed(0)} LCP ${r.lcpS.toFixed(2)} s TBT ${r.tbtMs.toFixed(0)} ms CLS ${r.cls.toFixed(3)}`).join('; ')}`);
+      // The machine's load beside the figures: TBT and LCP grow with it (the CPU is shared).
+      const load = os.loadavg().map((l) => l.toFixed(1)).join(' ');
+      console.log(`web: Lighthouse ${page.name} (load average ${load}): ${runs.map((r) => `score ${r.score.toFixed(0)} LCP ${r.lcpS.toFixed(2)} s TBT ${r.tbtMs.toFixed(0)} ms CLS ${r.cls.toFixed(3)}`).join('; ')}`);
       const m = median(runs);
       if (m.cls > 0.05) await printLayoutShifts(page.url, page.cookie);
       // The median run's whole report, for its diagnostics (bench/ is not committed).
