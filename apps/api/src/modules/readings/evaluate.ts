@@ -62,14 +62,15 @@ async function evaluateUnit(db: Executor, order: WorkOrderRow, input: InputFor<'
   const place = await findUnitPlace(db, input.targetId);
   if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Capacitor unit', input.targetId, order);
   if (place.unit.removedOn) throw removed('Capacitor unit', input.targetId, place.unit.removedOn);
-  const [reactor, stepUnits] = await Promise.all([place.bank.detuned ? reactorInService(db, place.step.id) : null, unitsOfStep(db, place.step.id)]);
+  // Only a detuned step's tuning needs its units and reactor; otherwise the count read with the place will do.
+  const [reactor, stepUnits] = place.bank.detuned ? await Promise.all([reactorInService(db, place.step.id), unitsOfStep(db, place.step.id)]) : [null, []];
   const outcome = evaluateCapacitorReading(input, {
     unit: place.unit,
     step: place.step,
     bank: place.bank,
     site: place.site,
     reactor,
-    unitsInStep: stepUnits.length,
+    unitsInStep: place.unitsInStep,
     orderKind: order.kind,
   });
   if (place.bank.detuned && outcome.unitResult) {

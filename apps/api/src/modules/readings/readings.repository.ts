@@ -85,9 +85,14 @@ const placeColumns = {
   },
 };
 
+/** A unit with its step, bank and site, and how many units are in service on its step. */
 export async function findUnitPlace(db: Executor, unitId: number) {
   const [row] = await db
-    .select({ unit: capacitorUnits, ...placeColumns })
+    .select({
+      unit: capacitorUnits,
+      ...placeColumns,
+      unitsInStep: sql<number>`(select count(*) from ${capacitorUnits} as units_in_service where units_in_service.step_id = ${capacitorUnits.stepId} and units_in_service.removed_on is null)`.mapWith(Number),
+    })
     .from(capacitorUnits)
     .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
     .innerJoin(banks, eq(banks.id, steps.bankId))

@@ -65,7 +65,7 @@ export async function listWorkOrders(ctx: AppContext, user: SessionUser, q: List
  * A page of work orders as JSON text, stored for the next reader with the same filter (the
  * same scope and query, whoever asks: db/read-cache.ts).
  */
-export async function workOrderPage(ctx: AppContext, user: SessionUser, q: ListQuery): Promise<string> {
+export async function workOrderPage(ctx: AppContext, user: SessionUser, q: ListQuery): Promise<Buffer> {
   const filter = filterOf(user, q);
   const key = cacheKey('work-orders', JSON.stringify({ ...filter, sort: q.sort, page: q.page, pageSize: q.pageSize }));
   const answer = await readThrough(ctx.db, key, async () => ({ value: await listWorkOrders(ctx, user, q), siteId: null }));
