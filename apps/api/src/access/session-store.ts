@@ -1,5 +1,7 @@
 import { and, eq, lt, ne, or, sql } from 'drizzle-orm';
 import type { Executor } from './executor';
+import type { Database } from '../db/client';
+import { preparedPerDatabase } from '../db/prepared';
 import { sessions, userRoles, users, viewerSiteGrants } from '../db/schema/index';
 import type { Role } from './policy';
 
@@ -37,8 +39,8 @@ export interface SessionRecord {
   user: { id: number; email: string; name: string; active: boolean; roles: Role[] };
 }
 
-function sessionLookup(db: Executor) {
-  return db
+const sessionLookup = preparedPerDatabase((db) =>
+  db
     .select({
       sessionId: sessions.id,
       lastSeenAt: sessions.lastSeenAt,
@@ -52,17 +54,12 @@ function sessionLookup(db: Executor) {
     .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
     .where(eq(sessions.tokenHash, sql.placeholder('tokenHash')))
-    .prepare();
-}
-
-/** Every request looks its session up: the statement is built once per database handle. */
-const preparedLookups = new WeakMap<Executor, ReturnType<typeof sessionLookup>>();
+    .prepare(),
+);
 
 /** The session with its user and roles in one round trip. */
-export async function findSession(db: Executor, tokenHash: string): Promise<SessionRecord | undefined> {
-  let lookup = preparedLookups.get(db);
-  if (!lookup) preparedLookups.set(db, (lookup = sessionLookup(db)));
-  const [row] = await lookup.execute({ tokenHash });
+export async function findSession(db: Database, tokenHash: string): Promise<SessionRecord | undefined> {
+  const [row] = await sessionLookup(db).execute({ tokenHash });
   if (!row) return undefined;
   return {
     sessionId: row.sessionId,

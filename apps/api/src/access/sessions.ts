@@ -1,4 +1,5 @@
 import type { Executor } from './executor';
+import type { Database } from '../db/client';
 import type { Config } from '../config';
 import { generateSecretToken, hashSecretToken } from '../security/secret-token';
 import type { CurrentSession } from './current-user';
@@ -37,7 +38,7 @@ export async function startSession(
  * The session a cookie token stands for, or undefined when it is unknown, past its absolute or
  * idle expiry, or its user was deactivated. An expired session is deleted on sight.
  */
-export async function resumeSession(db: Executor, config: Config, token: string, now = new Date()): Promise<CurrentSession | undefined> {
+export async function resumeSession(db: Database, config: Config, token: string, now = new Date()): Promise<CurrentSession | undefined> {
   const record = await findSession(db, hashSecretToken(token));
   if (!record) return undefined;
   const idleDeadline = record.lastSeenAt.getTime() + config.SESSION_IDLE_MINUTES * 60_000;

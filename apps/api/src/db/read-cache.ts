@@ -2,6 +2,8 @@ import { createHash } from 'node:crypto';
 import { eq, lt, sql } from 'drizzle-orm';
 import { LRUCache } from 'lru-cache';
 import type { Executor } from '../access/executor';
+import type { Database } from './client';
+import { preparedPerDatabase } from './prepared';
 import { readCache, readRevision } from './schema/index';
 
 /**
@@ -16,11 +18,16 @@ import { readCache, readRevision } from './schema/index';
  * answer is never served, and any number of API processes share the store.
  */
 
-export async function bumpReadRevision(db: Executor): Promise<void> {
-  await db
+const revisionBump = preparedPerDatabase((db) =>
+  db
     .update(readRevision)
     .set({ revision: sql`${readRevision.revision} + 1` })
-    .where(eq(readRevision.id, 1));
+    .where(eq(readRevision.id, 1))
+    .prepare(),
+);
+
+export async function bumpReadRevision(db: Database): Promise<void> {
+  await revisionBump(db).execute();
 }
 
 /** The UTC quarter hour of `d`, as 2026-12-02T14:45: an answer stored in it holds until it ends. */
@@ -42,21 +49,16 @@ export interface Answer {
   siteId: number | null;
 }
 
-function storedLookup(db: Executor) {
-  return db
+const storedLookup = preparedPerDatabase((db) =>
+  db
     .select({ current: readRevision.revision, stored: readCache.revision, validFor: readCache.validFor, siteId: readCache.siteId, body: readCache.body })
     .from(readRevision)
     .leftJoin(readCache, eq(readCache.cacheKey, sql.placeholder('key')))
     .where(eq(readRevision.id, 1))
-    .prepare();
-}
+    .prepare(),
+);
 
-function revisionLookup(db: Executor) {
-  return db.select({ current: readRevision.revision }).from(readRevision).where(eq(readRevision.id, 1)).prepare();
-}
-
-/** Built once per database handle: every cached read runs one of them. */
-const preparedLookups = new WeakMap<Executor, { stored: ReturnType<typeof storedLookup>; revision: ReturnType<typeof revisionLookup> }>();
+const revisionLookup = preparedPerDatabase((db) => db.select({ current: readRevision.revision }).from(readRevision).where(eq(readRevision.id, 1)).prepare());
 
 interface Copy extends Answer {
   revision: number;
@@ -70,8 +72,8 @@ interface Copy extends Answer {
  * current one, so every process still answers from the one revision. At most 32 MB per
  * database, least recently used first out.
  */
-const copiesByDatabase = new WeakMap<Executor, LRUCache<string, Copy>>();
-function copiesOf(db: Executor): LRUCache<string, Copy> {
+const copiesByDatabase = new WeakMap<Database, LRUCache<string, Copy>>();
+function copiesOf(db: Database): LRUCache<string, Copy> {
   let copies = copiesByDatabase.get(db);
   if (!copies) copiesByDatabase.set(db, (copies = new LRUCache<string, Copy>({ maxSize: 32 * 1024 * 1024, sizeCalculation: (copy) => copy.body.length + 256 })));
   return copies;
@@ -82,22 +84,19 @@ function copiesOf(db: Executor): LRUCache<string, Copy> {
  * `compute` returns the value to send and the site it belongs to.
  */
 export async function readThrough(
-  db: Executor,
+  db: Database,
   key: string,
   compute: () => Promise<{ value: unknown; siteId: number | null }>,
   now = new Date(),
 ): Promise<Answer> {
   const bucket = quarterHourOf(now);
-  let lookup = preparedLookups.get(db);
-  if (!lookup) preparedLookups.set(db, (lookup = { stored: storedLookup(db), revision: revisionLookup(db) }));
-
   const copies = copiesOf(db);
   const copy = copies.get(key);
   if (copy && copy.validFor === bucket) {
-    const [row] = await lookup.revision.execute();
+    const [row] = await revisionLookup(db).execute();
     if (row && row.current === copy.revision) return { body: copy.body, siteId: copy.siteId };
   }
-  const [row] = await lookup.stored.execute({ key });
+  const [row] = await storedLookup(db).execute({ key });
   if (row && row.stored === row.current && row.validFor === bucket && row.body !== null) {
     const stored = { body: Buffer.from(row.body), siteId: row.siteId };
     copies.set(key, { ...stored, revision: row.current, validFor: bucket });

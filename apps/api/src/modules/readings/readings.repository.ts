@@ -16,6 +16,8 @@ import {
   workOrders,
 } from '../../db/schema/index';
 import { offset } from '../../db/versioned';
+import type { Database } from '../../db/client';
+import { preparedPerDatabase } from '../../db/prepared';
 import type { FlagDraft, ReadingTarget } from './evaluation-types';
 import type { StepUnit } from './evaluate-step';
 
@@ -26,12 +28,18 @@ const readingColumns = {
   recordedByName: users.name,
 };
 
-export async function findReadingByKey(db: Executor, idempotencyKey: string) {
-  const [row] = await db
+const readingByKey = preparedPerDatabase((db) =>
+  db
     .select(readingColumns)
     .from(readings)
     .innerJoin(users, eq(users.id, readings.recordedById))
-    .where(eq(readings.idempotencyKey, idempotencyKey));
+    .where(eq(readings.idempotencyKey, sql.placeholder('idempotencyKey')))
+    .prepare(),
+);
+
+/** The reading stored under a phone's idempotency key, with who recorded it (outside any transaction). */
+export async function findReadingByKey(db: Database, idempotencyKey: string) {
+  const [row] = await readingByKey(db).execute({ idempotencyKey });
   return row;
 }
 

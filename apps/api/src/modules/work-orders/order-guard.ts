@@ -1,15 +1,24 @@
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import type { SessionUser } from '../../access/current-user';
 import { siteScope } from '../../access/site-scope';
 import type { Database } from '../../db/client';
+import { preparedPerDatabase } from '../../db/prepared';
 import { workOrders } from '../../db/schema/index';
 import { AppError } from '../../http/app-error';
 
 export type WorkOrderRow = typeof workOrders.$inferSelect;
 
 /** An order the user may see: missing and out-of-scope orders answer alike (404). */
+const orderById = preparedPerDatabase((db) =>
+  db
+    .select()
+    .from(workOrders)
+    .where(eq(workOrders.id, sql.placeholder('orderId')))
+    .prepare(),
+);
+
 export async function findVisibleOrder(db: Database, user: SessionUser, orderId: number): Promise<WorkOrderRow> {
-  const [order] = await db.select().from(workOrders).where(eq(workOrders.id, orderId));
+  const [order] = await orderById(db).execute({ orderId });
   const scope = siteScope(user);
   if (!order || (scope !== 'all' && !scope.includes(order.siteId))) {
     throw new AppError('not_found', `Work order ${orderId} does not exist.`);
