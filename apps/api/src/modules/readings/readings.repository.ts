@@ -198,12 +198,12 @@ export async function insertReading(db: Executor, values: typeof readings.$infer
 export async function advanceUnitLatest(
   db: Executor,
   values: { unitId: number; readingId: number; band: NonNullable<ReadingRow['band']>; deviationPct: number; kvarAtRated: number; legsUF: number[]; recordedAt: Date },
-): Promise<boolean> {
+): Promise<void> {
   const later = sql`VALUES(${sql.identifier('recorded_at')}) >= ${unitLatestEvaluations.recordedAt}`;
   const keepLater = (column: string) =>
     sql`IF(${later}, VALUES(${sql.identifier(column)}), ${sql.identifier(column)})`;
   // MariaDB applies the assignments left to right, so recorded_at, which the test reads, goes last.
-  const [result] = await db
+  await db
     .insert(unitLatestEvaluations)
     .values(values)
     .onDuplicateKeyUpdate({
@@ -216,8 +216,6 @@ export async function advanceUnitLatest(
         recordedAt: keepLater('recorded_at'),
       },
     });
-  // affectedRows: 1 inserted, 2 updated, 0 kept the later reading already stored.
-  return (result as unknown as { affectedRows: number }).affectedRows > 0;
 }
 
 /** The window of history a unit's drift is fitted over, before its latest reading. */
