@@ -61,6 +61,18 @@ describe('readThrough', () => {
     expect(stored!.revision).toBe((await revision()) - 1);
     expect(JSON.parse((await readThrough(app.ctx.db, key, slowCompute)).body.toString())).toEqual({ n: 2 });
   });
+
+  test('reads that arrive together share one check of the revision, and a write before them is seen by all', async () => {
+    const key = unique('test-key');
+    let computed = 0;
+    const compute = async () => ({ value: { n: ++computed }, siteId: null });
+    await readThrough(app.ctx.db, key, compute);
+    const together = await Promise.all(Array.from({ length: 8 }, () => readThrough(app.ctx.db, key, compute)));
+    expect(together.map((a) => a.body.toString())).toEqual(Array(8).fill('{"n":1}'));
+    await bumpReadRevision(app.ctx.db);
+    const after = await Promise.all(Array.from({ length: 8 }, () => readThrough(app.ctx.db, key, compute)));
+    expect(new Set(after.map((a) => JSON.parse(a.body.toString()).n)).has(1)).toBe(false);
+  });
 });
 
 describe('through the API', () => {

@@ -60,6 +60,29 @@ const storedLookup = preparedPerDatabase((db) =>
 
 const revisionLookup = preparedPerDatabase((db) => db.select({ current: readRevision.revision }).from(readRevision).where(eq(readRevision.id, 1)).prepare());
 
+/**
+ * The current revision, read by one query for all the callers of one turn of the event loop.
+ * The query is sent only after they have all asked (setImmediate), so it sees every write whose
+ * answer any of them had received before asking; a caller that comes after it was sent waits
+ * for the next one. Under load, reads that arrive together share one round trip.
+ */
+const pendingRevisionReads = new WeakMap<Database, Promise<number | undefined>>();
+function currentRevision(db: Database): Promise<number | undefined> {
+  let pending = pendingRevisionReads.get(db);
+  if (!pending) {
+    pending = new Promise((resolve, reject) => {
+      setImmediate(() => {
+        pendingRevisionReads.delete(db);
+        revisionLookup(db)
+          .execute()
+          .then((rows) => resolve(rows[0]?.current), reject);
+      });
+    });
+    pendingRevisionReads.set(db, pending);
+  }
+  return pending;
+}
+
 interface Copy extends Answer {
   revision: number;
   validFor: string;
@@ -93,8 +116,7 @@ export async function readThrough(
   const copies = copiesOf(db);
   const copy = copies.get(key);
   if (copy && copy.validFor === bucket) {
-    const [row] = await revisionLookup(db).execute();
-    if (row && row.current === copy.revision) return { body: copy.body, siteId: copy.siteId };
+    if ((await currentRevision(db)) === copy.revision) return { body: copy.body, siteId: copy.siteId };
   }
   const [row] = await storedLookup(db).execute({ key });
   if (row && row.stored === row.current && row.validFor === bucket && row.body !== null) {
