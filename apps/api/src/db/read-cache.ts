@@ -11,11 +11,13 @@ import { readCache, readRevision } from './schema/index';
  *
  * Every write that succeeds moves the one revision row on before its answer is sent
  * (http/read-revision.ts for the API; jobs and tools that write call bumpReadRevision). A read
- * fetches, in one query, the current revision and the answer stored under its key: when the
- * answer was computed at that revision and in the current quarter hour, it is sent as stored; otherwise it is
- * computed, stored with the revision read *before* computing, and sent. A write that lands
- * while an answer is being computed moves the revision past the one stored with it, so a stale
- * answer is never served, and any number of API processes share the store.
+ * sends a stored answer only when it was computed at the current revision and in the current
+ * quarter hour: from this process's copy when the revision (one check shared by the reads of
+ * one turn of the event loop) still matches it, else from `read_cache` (revision and answer in
+ * one query). Otherwise it computes, stores with the revision read *before* computing, and
+ * sends. A write that lands while an answer is being computed moves the revision past the one
+ * stored with it, so a stale answer is never served, and any number of API processes share the
+ * store.
  */
 
 const revisionBump = preparedPerDatabase((db) =>
