@@ -73,6 +73,19 @@ describe('readThrough', () => {
     const after = await Promise.all(Array.from({ length: 8 }, () => readThrough(app.ctx.db, key, compute)));
     expect(new Set(after.map((a) => JSON.parse(a.body.toString()).n)).has(1)).toBe(false);
   });
+
+  test('readers of one key that all miss wait for one computation of it', async () => {
+    const key = unique('test-key');
+    let computed = 0;
+    const compute = async () => {
+      computed += 1;
+      await new Promise((resolve) => setTimeout(resolve, 100));
+      return { value: { n: computed }, siteId: null };
+    };
+    const answers = await Promise.all(Array.from({ length: 6 }, () => readThrough(app.ctx.db, key, compute)));
+    expect(computed).toBe(1);
+    expect(answers.map((a) => a.body.toString())).toEqual(Array(6).fill('{"n":1}'));
+  });
 });
 
 describe('through the API', () => {

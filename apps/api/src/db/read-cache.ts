@@ -14,8 +14,8 @@ import { readCache, readRevision } from './schema/index';
  * sends a stored answer only when it was computed at the current revision and in the current
  * quarter hour: from this process's copy when the revision (one check shared by the reads of
  * one turn of the event loop) still matches it, else from `read_cache` (revision and answer in
- * one query). Otherwise it computes, stores with the revision read *before* computing, and
- * sends. A write that lands while an answer is being computed moves the revision past the one
+ * one query). Otherwise it computes (once for all the readers of that key at that revision),
+ * stores with the revision read *before* computing, and sends. A write that lands while an answer is being computed moves the revision past the one
  * stored with it, so a stale answer is never served, and any number of API processes share the
  * store.
  */
@@ -127,17 +127,44 @@ export async function readThrough(
     return stored;
   }
 
+  // Readers of one key at one revision and quarter hour wait for one computation, not one each.
+  if (!row) return computeAndStore(db, key, compute, undefined, bucket, now);
+  const flight = `${key}\u0000${row.current}\u0000${bucket}`;
+  const flights = flightsOf(db);
+  let answer = flights.get(flight);
+  if (!answer) {
+    answer = computeAndStore(db, key, compute, row.current, bucket, now).finally(() => flights.delete(flight));
+    flights.set(flight, answer);
+  }
+  return answer;
+}
+
+const flightsByDatabase = new WeakMap<Database, Map<string, Promise<Answer>>>();
+function flightsOf(db: Database): Map<string, Promise<Answer>> {
+  let flights = flightsByDatabase.get(db);
+  if (!flights) flightsByDatabase.set(db, (flights = new Map()));
+  return flights;
+}
+
+/** Computes an answer and stores it with `revision`, the one read before computing (none: a database not migrated to 0006). */
+async function computeAndStore(
+  db: Database,
+  key: string,
+  compute: () => Promise<{ value: unknown; siteId: number | null }>,
+  revision: number | undefined,
+  bucket: string,
+  now: Date,
+): Promise<Answer> {
   const { value, siteId } = await compute();
   const text = JSON.stringify(value);
   const body = Buffer.from(text);
-  // Without the revision row (a database not migrated to 0006) nothing is stored.
-  if (row) {
-    const values = { cacheKey: key, siteId, revision: row.current, validFor: bucket, body: text, storedAt: now };
+  if (revision !== undefined) {
+    const values = { cacheKey: key, siteId, revision, validFor: bucket, body: text, storedAt: now };
     await db
       .insert(readCache)
       .values(values)
-      .onDuplicateKeyUpdate({ set: { siteId, revision: row.current, validFor: bucket, body: text, storedAt: now } });
-    copies.set(key, { body, siteId, revision: row.current, validFor: bucket });
+      .onDuplicateKeyUpdate({ set: { siteId, revision, validFor: bucket, body: text, storedAt: now } });
+    copiesOf(db).set(key, { body, siteId, revision, validFor: bucket });
   }
   return { body, siteId };
 }
