@@ -15,9 +15,9 @@ import { readCache, readRevision } from './schema/index';
  * quarter hour: from this process's copy when the revision (one check shared by the reads of
  * one turn of the event loop) still matches it, else from `read_cache` (revision and answer in
  * one query). Otherwise it computes (once for all the readers of that key at that revision),
- * stores with the revision read *before* computing, and sends. A write that lands while an answer is being computed moves the revision past the one
- * stored with it, so a stale answer is never served, and any number of API processes share the
- * store.
+ * stores with the revision read *before* computing, and sends. A write that lands while an
+ * answer is being computed moves the revision past the one stored with it, so a stale answer
+ * is never served, and any number of API processes share the store.
  */
 
 const revisionBump = preparedPerDatabase((db) =>
