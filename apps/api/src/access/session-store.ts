@@ -1,7 +1,7 @@
 import { and, eq, lt, ne, or, sql } from 'drizzle-orm';
 import type { Executor } from './executor';
 import type { Database } from '../db/client';
-import { preparedPerDatabase } from '../db/prepared';
+import { perDatabase } from '../db/prepared';
 import { sessions, userRoles, users, viewerSiteGrants } from '../db/schema/index';
 import type { Role } from './policy';
 
@@ -39,7 +39,7 @@ export interface SessionRecord {
   user: { id: number; email: string; name: string; active: boolean; roles: Role[] };
 }
 
-const sessionLookup = preparedPerDatabase((db) =>
+const sessionLookup = perDatabase((db) =>
   db
     .select({
       sessionId: sessions.id,

@@ -3,7 +3,7 @@ import { eq, lt, sql } from 'drizzle-orm';
 import { LRUCache } from 'lru-cache';
 import type { Executor } from '../access/executor';
 import type { Database } from './client';
-import { preparedPerDatabase } from './prepared';
+import { perDatabase } from './prepared';
 import { readCache, readRevision } from './schema/index';
 
 /**
@@ -20,7 +20,7 @@ import { readCache, readRevision } from './schema/index';
  * is never served, and any number of API processes share the store.
  */
 
-const revisionBump = preparedPerDatabase((db) =>
+const revisionBump = perDatabase((db) =>
   db
     .update(readRevision)
     .set({ revision: sql`${readRevision.revision} + 1` })
@@ -51,7 +51,7 @@ export interface Answer {
   siteId: number | null;
 }
 
-const storedLookup = preparedPerDatabase((db) =>
+const storedLookup = perDatabase((db) =>
   db
     .select({ current: readRevision.revision, stored: readCache.revision, validFor: readCache.validFor, siteId: readCache.siteId, body: readCache.body })
     .from(readRevision)
@@ -60,7 +60,7 @@ const storedLookup = preparedPerDatabase((db) =>
     .prepare(),
 );
 
-const revisionLookup = preparedPerDatabase((db) => db.select({ current: readRevision.revision }).from(readRevision).where(eq(readRevision.id, 1)).prepare());
+const revisionLookup = perDatabase((db) => db.select({ current: readRevision.revision }).from(readRevision).where(eq(readRevision.id, 1)).prepare());
 
 /**
  * The current revision, read by one query for all the callers of one turn of the event loop.
@@ -97,12 +97,7 @@ interface Copy extends Answer {
  * current one, so every process still answers from the one revision. At most 32 MB per
  * database, least recently used first out.
  */
-const copiesByDatabase = new WeakMap<Database, LRUCache<string, Copy>>();
-function copiesOf(db: Database): LRUCache<string, Copy> {
-  let copies = copiesByDatabase.get(db);
-  if (!copies) copiesByDatabase.set(db, (copies = new LRUCache<string, Copy>({ maxSize: 32 * 1024 * 1024, sizeCalculation: (copy) => copy.body.length + 256 })));
-  return copies;
-}
+const copiesOf = perDatabase(() => new LRUCache<string, Copy>({ maxSize: 32 * 1024 * 1024, sizeCalculation: (copy) => copy.body.length + 256 }));
 
 /**
  * The answer stored under `key` if it is current, else `compute()`'s, stored for the next read.
@@ -139,12 +134,8 @@ export async function readThrough(
   return answer;
 }
 
-const flightsByDatabase = new WeakMap<Database, Map<string, Promise<Answer>>>();
-function flightsOf(db: Database): Map<string, Promise<Answer>> {
-  let flights = flightsByDatabase.get(db);
-  if (!flights) flightsByDatabase.set(db, (flights = new Map()));
-  return flights;
-}
+/** Computations under way, by key, revision and quarter hour. */
+const flightsOf = perDatabase(() => new Map<string, Promise<Answer>>());
 
 /** Computes an answer and stores it with `revision`, the one read before computing (none: a database not migrated to 0006). */
 async function computeAndStore(

@@ -17,7 +17,7 @@ import {
 } from '../../db/schema/index';
 import { offset } from '../../db/versioned';
 import type { Database } from '../../db/client';
-import { preparedPerDatabase } from '../../db/prepared';
+import { perDatabase } from '../../db/prepared';
 import type { FlagDraft, ReadingTarget } from './evaluation-types';
 import type { StepUnit } from './evaluate-step';
 
@@ -28,7 +28,7 @@ const readingColumns = {
   recordedByName: users.name,
 };
 
-const readingByKey = preparedPerDatabase((db) =>
+const readingByKey = perDatabase((db) =>
   db
     .select(readingColumns)
     .from(readings)

@@ -2,14 +2,14 @@ import { eq, sql } from 'drizzle-orm';
 import type { SessionUser } from '../../access/current-user';
 import { siteScope } from '../../access/site-scope';
 import type { Database } from '../../db/client';
-import { preparedPerDatabase } from '../../db/prepared';
+import { perDatabase } from '../../db/prepared';
 import { workOrders } from '../../db/schema/index';
 import { AppError } from '../../http/app-error';
 
 export type WorkOrderRow = typeof workOrders.$inferSelect;
 
 /** An order the user may see: missing and out-of-scope orders answer alike (404). */
-const orderById = preparedPerDatabase((db) =>
+const orderById = perDatabase((db) =>
   db
     .select()
     .from(workOrders)
