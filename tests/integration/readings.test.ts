@@ -363,6 +363,19 @@ describe("detuned steps: the step's tuning after each unit reading", () => {
     );
   });
 
+  test("the step's tuning uses the inductance its reactor's latest reading measured, not the register's", async () => {
+    const { orderId, unitIds, reactorId, reactorInductanceMH } = await onSiteOrder({ nameplate: { voltageV: 440 }, detuningFactor: 0.07 });
+    const l = reactorInductanceMH! * 1.04;
+    expect((await record(orderId, { target: 'reactor', targetId: reactorId, inductanceMH: [l, l, l], thermalSwitchClosed: true })).status).toBe(201);
+    const res = await record(orderId, unitReading(unitIds[0]!, { method: 'per-element', elementsUF: [leg440, leg440, leg440] }));
+    expect(res.status).toBe(201);
+    const step = res.body.evaluation.step;
+    expect(step.inductanceSource).toBe('reactor reading');
+    expect(step.inductanceMH).toBeCloseTo(l, 9);
+    // f_r = 1/(2π·√(L·C)): 4 % more inductance tunes the step √1.04 lower [DERIVED] §4.
+    expect(step.tuning.tuningHz).toBeCloseTo(50 / Math.sqrt(0.07 * 1.04), 6);
+  });
+
   test('with several units the tuning waits for all of them; line currents of one unit behind a shared reactor are refused', async () => {
     const { orderId, unitIds } = await onSiteOrder({ units: 2, nameplate: { voltageV: 440 }, detuningFactor: 0.07 });
     const first = await record(orderId, unitReading(unitIds[0]!, { method: 'per-element', elementsUF: [leg440, leg440, leg440] }));

@@ -1,4 +1,4 @@
-import type { Executor } from '../../access/executor';
+import type { Database } from '../../db/client';
 import { AppError } from '../../http/app-error';
 import type { WorkOrderRow } from '../work-orders/order-guard';
 import { evaluateCapacitorReading } from './evaluate-capacitor';
@@ -29,7 +29,7 @@ const removed = (what: string, id: number, on: string) =>
  * reactor and units) and evaluates it with packages/engineering. Runs inside the transaction
  * that stores the reading, after the bank is locked, so the step's latest evaluations are current.
  */
-export async function evaluateReading(db: Executor, order: WorkOrderRow, input: ReadingInputValue, recordedAt: Date): Promise<Outcome> {
+export async function evaluateReading(db: Database, order: WorkOrderRow, input: ReadingInputValue, recordedAt: Date): Promise<Outcome> {
   switch (input.target) {
     case 'capacitor-unit':
       return evaluateUnit(db, order, input, recordedAt);
@@ -58,12 +58,14 @@ export async function evaluateReading(db: Executor, order: WorkOrderRow, input: 
   }
 }
 
-async function evaluateUnit(db: Executor, order: WorkOrderRow, input: InputFor<'capacitor-unit'>, recordedAt: Date): Promise<Outcome> {
+async function evaluateUnit(db: Database, order: WorkOrderRow, input: InputFor<'capacitor-unit'>, recordedAt: Date): Promise<Outcome> {
   const place = await findUnitPlace(db, input.targetId);
   if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Capacitor unit', input.targetId, order);
   if (place.unit.removedOn) throw removed('Capacitor unit', input.targetId, place.unit.removedOn);
   // Only a detuned step's tuning needs its units and reactor; otherwise the count read with the place will do.
-  const [reactor, stepUnits] = place.bank.detuned ? await Promise.all([reactorInService(db, place.step.id), unitsOfStep(db, place.step.id)]) : [null, []];
+  const inService = place.bank.detuned ? await reactorInService(db, place.step.id) : null;
+  const reactor = inService?.reactor ?? null;
+  const stepUnits = place.bank.detuned ? await unitsOfStep(db, place.step.id) : [];
   const outcome = evaluateCapacitorReading(input, {
     unit: place.unit,
     step: place.step,
@@ -73,19 +75,20 @@ async function evaluateUnit(db: Executor, order: WorkOrderRow, input: InputFor<'
     unitsInStep: place.unitsInStep,
     orderKind: order.kind,
   });
+  outcome.unitLatestAt = place.latestRecordedAt;
   if (place.bank.detuned && outcome.unitResult) {
     const legs = outcome.unitResult.legsUF;
     // This reading counts for the step unless a reading taken later is already the unit's latest.
     const units: StepUnit[] = stepUnits.map((u) =>
       u.unit.id === place.unit.id && (!u.recordedAt || recordedAt >= u.recordedAt) ? { unit: u.unit, legsUF: legs } : u,
     );
-    const measuredInductanceMH = reactor ? await latestMeasuredInductance(db, reactor) : undefined;
+    const measuredInductanceMH = measuredMean(inService?.latestInductanceMH);
     addStepTuning(outcome, evaluateStepTuning({ site: place.site, bank: place.bank, step: place.step, reactor, units, measuredInductanceMH }));
   }
   return outcome;
 }
 
-async function evaluateReactor(db: Executor, order: WorkOrderRow, input: InputFor<'reactor'>): Promise<Outcome> {
+async function evaluateReactor(db: Database, order: WorkOrderRow, input: InputFor<'reactor'>): Promise<Outcome> {
   const place = await findReactorPlace(db, input.targetId);
   if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Reactor', input.targetId, order);
   if (place.reactor.removedOn) throw removed('Reactor', input.targetId, place.reactor.removedOn);
@@ -105,9 +108,12 @@ function addStepTuning(outcome: Outcome, tuning: ReturnType<typeof evaluateStepT
 }
 
 /** The mean inductance the reactor's latest reading measured, if it did; otherwise the register's counts. */
-async function latestMeasuredInductance(db: Executor, reactor: ReactorRecord): Promise<number | undefined> {
-  const latest = await latestReadingInput(db, 'reactor', reactor.id);
-  const values = latest?.input.inductanceMH;
+async function latestMeasuredInductance(db: Database, reactor: ReactorRecord): Promise<number | undefined> {
+  return measuredMean((await latestReadingInput(db, 'reactor', reactor.id))?.input.inductanceMH);
+}
+
+/** The mean of three measured inductances, or undefined when a reading did not measure them. */
+function measuredMean(values: unknown): number | undefined {
   if (!Array.isArray(values) || values.length !== 3 || !values.every((v): v is number => typeof v === 'number' && v > 0)) return undefined;
   return mean(values);
 }

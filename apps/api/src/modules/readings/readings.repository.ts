@@ -1,5 +1,5 @@
 import { projectDrift } from '@varden/engineering';
-import { and, asc, count, desc, eq, inArray, isNotNull, isNull, ne, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lte, ne, sql } from 'drizzle-orm';
 import type { Executor } from '../../access/executor';
 import {
   banks,
@@ -19,6 +19,7 @@ import { offset } from '../../db/versioned';
 import type { Database } from '../../db/client';
 import { perDatabase } from '../../db/prepared';
 import type { FlagDraft, ReadingTarget } from './evaluation-types';
+import type { WorkOrderRow } from '../work-orders/order-guard';
 import type { StepUnit } from './evaluate-step';
 
 export type ReadingRow = typeof readings.$inferSelect;
@@ -65,19 +66,25 @@ export async function lockOrder(db: Executor, orderId: number) {
   return row;
 }
 
-/**
- * lockOrder and the lock on the order's bank in one statement (FOR UPDATE locks the rows read
- * from both tables): readings on one bank are serialised, so flags are raised once and latest
- * evaluations move forward only.
- */
-export async function lockOrderAndBank(db: Executor, orderId: number) {
-  const [row] = await db
-    .select({ id: workOrders.id, state: workOrders.state, locked: workOrders.locked, assigneeId: workOrders.assigneeId, bankId: banks.id })
+const orderAndBankLock = perDatabase((db) =>
+  db
+    .select({ order: workOrders, bankId: banks.id })
     .from(workOrders)
     .innerJoin(banks, eq(banks.id, workOrders.bankId))
-    .where(eq(workOrders.id, orderId))
-    .for('update');
-  return row;
+    .where(eq(workOrders.id, sql.placeholder('orderId')))
+    .for('update')
+    .prepare(),
+);
+
+/**
+ * Reads the order and locks it and its bank for the length of the transaction, in one statement
+ * (FOR UPDATE locks the rows read from both tables): readings on one bank are serialised, so
+ * flags are raised once and latest evaluations move forward only, and a reading never lands on
+ * an order that moved on meanwhile. `db` is a transaction's handle (db/connection-transaction.ts).
+ */
+export async function lockOrderAndBank(db: Database, orderId: number): Promise<WorkOrderRow | undefined> {
+  const [row] = await orderAndBankLock(db).execute({ orderId });
+  return row?.order;
 }
 
 const placeColumns = {
@@ -93,19 +100,29 @@ const placeColumns = {
   },
 };
 
-/** A unit with its step, bank and site, and how many units are in service on its step. */
-export async function findUnitPlace(db: Executor, unitId: number) {
-  const [row] = await db
+const unitPlace = perDatabase((db) =>
+  db
     .select({
       unit: capacitorUnits,
       ...placeColumns,
       unitsInStep: sql<number>`(select count(*) from ${capacitorUnits} as units_in_service where units_in_service.step_id = ${capacitorUnits.stepId} and units_in_service.removed_on is null)`.mapWith(Number),
+      latestRecordedAt: unitLatestEvaluations.recordedAt,
     })
     .from(capacitorUnits)
     .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
     .innerJoin(banks, eq(banks.id, steps.bankId))
     .innerJoin(sites, eq(sites.id, banks.siteId))
-    .where(eq(capacitorUnits.id, unitId));
+    .leftJoin(unitLatestEvaluations, eq(unitLatestEvaluations.unitId, capacitorUnits.id))
+    .where(eq(capacitorUnits.id, sql.placeholder('unitId')))
+    .prepare(),
+);
+
+/**
+ * A unit with its step, bank and site, how many units are in service on its step, and when the
+ * reading behind its latest evaluation was taken (null before its first).
+ */
+export async function findUnitPlace(db: Database, unitId: number) {
+  const [row] = await unitPlace(db).execute({ unitId });
   return row;
 }
 
@@ -151,24 +168,46 @@ export async function findBankPlace(db: Executor, bankId: number) {
   return row;
 }
 
-export async function reactorInService(db: Executor, stepId: number) {
-  const [row] = await db
-    .select({ id: reactors.id, inductanceMH: reactors.inductanceMH, detuningFactor: reactors.detuningFactor })
+const stepReactor = perDatabase((db) =>
+  db
+    .select({
+      id: reactors.id,
+      inductanceMH: reactors.inductanceMH,
+      detuningFactor: reactors.detuningFactor,
+      // The inductances the reactor's latest reading measured, as JSON text, if it measured any.
+      // Written out with its own alias: Drizzle leaves columns unqualified in a one-table select.
+      latestInductanceMH: sql<unknown>`(select json_extract(latest.input, '$.inductanceMH') from ${readings} as latest where latest.target = 'reactor' and latest.target_id = ${sql.identifier('reactors')}.${sql.identifier('id')} order by latest.recorded_at desc, latest.id desc limit 1)`,
+    })
     .from(reactors)
-    .where(and(eq(reactors.stepId, stepId), isNull(reactors.removedOn)))
+    .where(and(eq(reactors.stepId, sql.placeholder('stepId')), isNull(reactors.removedOn)))
     .orderBy(desc(reactors.id))
-    .limit(1);
-  return row ?? null;
+    .limit(1)
+    .prepare(),
+);
+
+/** The reactor in service on a step, with the inductances its latest reading measured (undefined when it measured none). */
+export async function reactorInService(db: Database, stepId: number) {
+  const [row] = await stepReactor(db).execute({ stepId });
+  if (!row) return null;
+  const { latestInductanceMH, ...reactor } = row;
+  // mysql2 hands a JSON value over parsed; text (a driver that does not) is parsed here.
+  const measured: unknown = typeof latestInductanceMH === 'string' ? JSON.parse(latestInductanceMH) : latestInductanceMH;
+  return { reactor, latestInductanceMH: measured ?? undefined };
 }
 
-/** The units in service in a step with the legs of their latest evaluation. */
-export async function unitsOfStep(db: Executor, stepId: number): Promise<Array<StepUnit & { recordedAt: Date | null }>> {
-  const rows = await db
+const stepUnits = perDatabase((db) =>
+  db
     .select({ unit: capacitorUnits, legsUF: unitLatestEvaluations.legsUF, recordedAt: unitLatestEvaluations.recordedAt })
     .from(capacitorUnits)
     .leftJoin(unitLatestEvaluations, eq(unitLatestEvaluations.unitId, capacitorUnits.id))
-    .where(and(eq(capacitorUnits.stepId, stepId), isNull(capacitorUnits.removedOn)))
-    .orderBy(asc(capacitorUnits.position));
+    .where(and(eq(capacitorUnits.stepId, sql.placeholder('stepId')), isNull(capacitorUnits.removedOn)))
+    .orderBy(asc(capacitorUnits.position))
+    .prepare(),
+);
+
+/** The units in service in a step with the legs of their latest evaluation. */
+export async function unitsOfStep(db: Database, stepId: number): Promise<Array<StepUnit & { recordedAt: Date | null }>> {
+  const rows = await stepUnits(db).execute({ stepId });
   return rows.map((r) => ({ unit: r.unit, legsUF: r.legsUF ?? undefined, recordedAt: r.recordedAt }));
 }
 
@@ -183,39 +222,31 @@ export async function latestReadingInput(db: Executor, target: ReadingTarget, ta
   return row;
 }
 
-export async function insertReading(db: Executor, values: typeof readings.$inferInsert): Promise<number> {
-  const [created] = await db.insert(readings).values(values).$returningId();
-  return created!.id;
-}
+const readingInsert = perDatabase((db) =>
+  db
+    .insert(readings)
+    .values({
+      workOrderId: sql.placeholder('workOrderId'),
+      idempotencyKey: sql.placeholder('idempotencyKey'),
+      target: sql.placeholder('target'),
+      targetId: sql.placeholder('targetId'),
+      input: sql.placeholder('input'),
+      evaluation: sql.placeholder('evaluation'),
+      engineeringVersion: sql.placeholder('engineeringVersion'),
+      band: sql.placeholder('band'),
+      deviationPct: sql.placeholder('deviationPct'),
+      recordedById: sql.placeholder('recordedById'),
+      recordedAt: sql.placeholder('recordedAt'),
+    })
+    .$returningId()
+    .prepare(),
+);
 
-/**
- * Moves a unit's latest evaluation to this reading unless a reading taken later is already stored.
- * One upsert, not a locking read then an insert: SELECT … FOR UPDATE on a unit with no row yet
- * takes a gap lock, and two banks' first readings then deadlock on each other's gap when they
- * insert (seen under the field load test). Readings of one unit are already serialised by the
- * bank lock; the IF keeps the later reading when they arrive out of order.
- */
-export async function advanceUnitLatest(
-  db: Executor,
-  values: { unitId: number; readingId: number; band: NonNullable<ReadingRow['band']>; deviationPct: number; kvarAtRated: number; legsUF: number[]; recordedAt: Date },
-): Promise<void> {
-  const later = sql`VALUES(${sql.identifier('recorded_at')}) >= ${unitLatestEvaluations.recordedAt}`;
-  const keepLater = (column: string) =>
-    sql`IF(${later}, VALUES(${sql.identifier(column)}), ${sql.identifier(column)})`;
-  // MariaDB applies the assignments left to right, so recorded_at, which the test reads, goes last.
-  await db
-    .insert(unitLatestEvaluations)
-    .values(values)
-    .onDuplicateKeyUpdate({
-      set: {
-        readingId: keepLater('reading_id'),
-        band: keepLater('band'),
-        deviationPct: keepLater('deviation_pct'),
-        kvarAtRated: keepLater('kvar_at_rated'),
-        legsUF: keepLater('legs_uf'),
-        recordedAt: keepLater('recorded_at'),
-      },
-    });
+type ReadingValues = Omit<typeof readings.$inferInsert, 'id' | 'createdAt'>;
+
+export async function insertReading(db: Database, values: ReadingValues): Promise<number> {
+  const [created] = await readingInsert(db).execute({ band: null, deviationPct: null, ...values });
+  return created!.id;
 }
 
 /** The window of history a unit's drift is fitted over, before its latest reading. */
@@ -223,34 +254,93 @@ export const driftWindowMs = 5 * 365.25 * 86_400_000;
 /** The deviation below which a unit is replaced, as the fleet projects it (the policy's replace limit). */
 export const replaceBelowPct = -10;
 
-/**
- * Fits the unit's drift over the five years up to its latest reading (projectDrift) and stores
- * the rate and the projected replacement date beside its latest evaluation, so the fleet
- * dashboard reads one row per unit instead of the history.
- */
-export async function refreshUnitDrift(db: Executor, unitId: number): Promise<void> {
-  // The window ends at the latest evaluation's reading, read in the same statement.
-  const latestAt = sql`(select ${unitLatestEvaluations.recordedAt} from ${unitLatestEvaluations} where ${unitLatestEvaluations.unitId} = ${unitId})`;
-  const points = await db
+const driftPointsQuery = perDatabase((db) =>
+  db
     .select({ recordedAt: readings.recordedAt, deviationPct: readings.deviationPct })
     .from(readings)
     .where(
       and(
         eq(readings.target, 'capacitor-unit'),
-        eq(readings.targetId, unitId),
-        sql`${readings.recordedAt} >= ${latestAt} - interval ${sql.raw(String(Math.round(driftWindowMs / 1000)))} second`,
-        sql`${readings.recordedAt} <= ${latestAt}`,
+        eq(readings.targetId, sql.placeholder('unitId')),
+        gte(readings.recordedAt, sql.placeholder('from')),
+        lte(readings.recordedAt, sql.placeholder('to')),
         isNotNull(readings.deviationPct),
       ),
-    );
+    )
+    .prepare(),
+);
+
+/**
+ * The unit's drift fitted (projectDrift) over the five years of its readings up to `windowEnd`,
+ * the time of the reading behind its latest evaluation: the rate and the projected replacement
+ * date stored beside that evaluation, so the fleet dashboard reads one row per unit, never the history.
+ */
+export async function unitDrift(db: Database, unitId: number, windowEnd: Date): Promise<{ driftRatePctPerYear: number | null; replaceBy: string | null }> {
+  const points = await driftPointsQuery(db).execute({ unitId, from: new Date(windowEnd.getTime() - driftWindowMs), to: windowEnd });
   const drift =
     points.length < 2
       ? null
       : projectDrift({ points: points.map((p) => ({ date: p.recordedAt.toISOString(), deviationPct: p.deviationPct! })), replaceBelowPct });
-  await db
-    .update(unitLatestEvaluations)
-    .set({ driftRatePctPerYear: drift?.ratePctPerYear ?? null, replaceBy: drift?.replaceBy?.slice(0, 10) ?? null })
-    .where(eq(unitLatestEvaluations.unitId, unitId));
+  return { driftRatePctPerYear: drift?.ratePctPerYear ?? null, replaceBy: drift?.replaceBy?.slice(0, 10) ?? null };
+}
+
+const later = sql`VALUES(${sql.identifier('recorded_at')}) >= ${unitLatestEvaluations.recordedAt}`;
+const keepLater = (column: string) => sql`IF(${later}, VALUES(${sql.identifier(column)}), ${sql.identifier(column)})`;
+
+const unitLatestUpsert = perDatabase((db) =>
+  db
+    .insert(unitLatestEvaluations)
+    .values({
+      unitId: sql.placeholder('unitId'),
+      readingId: sql.placeholder('readingId'),
+      band: sql.placeholder('band'),
+      deviationPct: sql.placeholder('deviationPct'),
+      kvarAtRated: sql.placeholder('kvarAtRated'),
+      legsUF: sql.placeholder('legsUF'),
+      recordedAt: sql.placeholder('recordedAt'),
+      driftRatePctPerYear: sql.placeholder('driftRatePctPerYear'),
+      replaceBy: sql.placeholder('replaceBy'),
+    })
+    .onDuplicateKeyUpdate({
+      set: {
+        readingId: keepLater('reading_id'),
+        band: keepLater('band'),
+        deviationPct: keepLater('deviation_pct'),
+        kvarAtRated: keepLater('kvar_at_rated'),
+        legsUF: keepLater('legs_uf'),
+        // The drift is fitted over the window up to whichever reading is the latest, so it always moves.
+        driftRatePctPerYear: sql`VALUES(${sql.identifier('drift_rate_pct_per_year')})`,
+        replaceBy: sql`VALUES(${sql.identifier('replace_by')})`,
+        // MariaDB applies the assignments left to right, so recorded_at, which the IFs read, goes last.
+        recordedAt: keepLater('recorded_at'),
+      },
+    })
+    .prepare(),
+);
+
+/**
+ * Moves a unit's latest evaluation to this reading unless a reading taken later is already
+ * stored, and stores the drift fitted up to whichever is the latest (unitDrift). One upsert, not
+ * a locking read then an insert: SELECT … FOR UPDATE on a unit with no row yet takes a gap lock,
+ * and two banks' first readings then deadlock on each other's gap when they insert (seen under
+ * the field load test). Readings of one unit are already serialised by the bank lock; the IF
+ * keeps the later reading when they arrive out of order.
+ */
+export async function advanceUnitLatest(
+  db: Database,
+  values: {
+    unitId: number;
+    readingId: number;
+    band: NonNullable<ReadingRow['band']>;
+    deviationPct: number;
+    kvarAtRated: number;
+    legsUF: number[];
+    recordedAt: Date;
+    driftRatePctPerYear: number | null;
+    replaceBy: string | null;
+  },
+): Promise<void> {
+  await unitLatestUpsert(db).execute(values);
 }
 
 /** Flags not yet cleared (open or in hand) on these targets, as "kind target id" keys. */

@@ -10,7 +10,8 @@ import { isDuplicateKey } from '../../db/versioned';
 import { cacheKey, readThrough } from '../../db/read-cache';
 import { AppError } from '../../http/app-error';
 import { notifyReplaceFlag } from '../flags/flag-mail';
-import { assertRecordable, findOrderForRecording, findVisibleOrder } from '../work-orders/order-guard';
+import { assertRecordable, assertVisible, findVisibleOrder } from '../work-orders/order-guard';
+import { transactionOnConnection } from '../../db/connection-transaction';
 import { evaluateReading } from './evaluate';
 import type { ReadingInputValue } from './evaluation-types';
 import {
@@ -21,9 +22,9 @@ import {
   insertReading,
   lockOrderAndBank,
   readingsOfOrder,
-  refreshUnitDrift,
   siteOfUnit,
   unclearedFlagKeys,
+  unitDrift,
   unitReadingPage,
   type ReadingRow,
 } from './readings.repository';
@@ -37,11 +38,15 @@ const clockSkewMs = 5 * 60 * 1000;
  * Records a reading on a work order and evaluates it on the server.
  *
  * - Idempotent: the phone's key is unique. A retry by the same person on the same order gets
- *   the stored reading (created: false); the key on another order or reading is a conflict.
- * - Only the assignee, only while the order is on site, never once sealed (order-guard), checked
- *   again under a lock on the order inside the transaction.
- * - The reading, the unit's latest evaluation and new flags are written in one transaction,
- *   holding a lock on the bank so concurrent readings raise each flag once.
+ *   the stored reading (created: false), whatever has happened to the order since; the key on
+ *   another order or reading is a conflict. The key is looked up only when the reading cannot
+ *   be stored (a refusal or the unique key), so a first sending costs no lookup.
+ * - Only the assignee, only while the order is on site, never once sealed (order-guard),
+ *   checked on the order as read under its lock inside the transaction.
+ * - The reading, the unit's latest evaluation and its drift, and new flags are written in one
+ *   transaction, holding a lock on the bank so concurrent readings raise each flag once.
+ *   The transaction runs on one pooled connection (db/connection-transaction.ts), so its
+ *   statements are prepared once per connection, not built again for every reading.
  */
 export async function recordReading(
   ctx: AppContext,
@@ -49,71 +54,69 @@ export async function recordReading(
   orderId: number,
   input: ReadingInputValue,
 ): Promise<{ reading: Reading; created: boolean }> {
-  const { db } = ctx;
-  const [visible, earlier] = await Promise.all([findVisibleOrder(db, user, orderId), findReadingByKey(db, input.idempotencyKey)]);
-  if (earlier && isRetryOf(earlier.reading, user, orderId, input)) return { reading: toReading(earlier), created: false };
-  const order = assertRecordable(visible, user);
-  if (earlier) throw keyTaken();
-  const recordedAt = recordedAtOf(input);
-
-  let stored: { row: ReadingRow; newFlags: FlagRow[] } | 'stored-by-another-request';
+  let stored: { row: ReadingRow; newFlags: FlagRow[] };
   try {
-    stored = await db.transaction(async (tx) => {
-      const current = await lockOrderAndBank(tx, orderId);
-      if (!current || current.locked || current.state !== 'on-site' || current.assigneeId !== user.id) {
-        // It moved on between the check and the lock: the guard says how.
-        await findOrderForRecording(db, user, orderId);
-        throw new AppError('conflict', `Work order ${orderId} changed while the reading was being stored. Reload it.`);
-      }
-      // A second request with the same key waits on the bank's lock, then meets the unique key (caught below).
-
-      const outcome = await evaluateReading(tx, order, input, recordedAt);
-      const open = await unclearedFlagKeys(tx, outcome.flags);
-      const drafts = outcome.flags.filter((f, i, all) => all.findIndex((g) => flagKey(g) === flagKey(f)) === i);
-      outcome.evaluation.flags = drafts.map((f) => ({ kind: f.kind, severity: f.severity, message: f.message, alreadyOpen: open.has(flagKey(f)) }));
-
-      const values = {
-        workOrderId: orderId,
-        idempotencyKey: input.idempotencyKey,
-        target: input.target,
-        targetId: input.targetId,
-        input: { ...input },
-        evaluation: outcome.evaluation,
-        engineeringVersion: ENGINEERING_VERSION,
-        band: outcome.band,
-        deviationPct: outcome.deviationPct,
-        recordedById: user.id,
-        recordedAt,
-      };
-      const readingId = await insertReading(tx, values);
-      if (outcome.unitResult) {
-        await advanceUnitLatest(tx, { unitId: input.targetId, readingId, recordedAt, ...outcome.unitResult });
-        await refreshUnitDrift(tx, input.targetId);
-      }
-      const newFlags: FlagRow[] = [];
-      const raisedAt = new Date();
-      for (const draft of drafts) {
-        if (open.has(flagKey(draft))) continue;
-        newFlags.push(await insertFlag(tx, { ...draft, siteId: order.siteId, bankId: order.bankId, readingId, raisedAt }));
-      }
-      // The stored row as it would read back (JSON columns hold what was written); no second query.
-      const row: ReadingRow = { id: readingId, ...values, band: values.band ?? null, deviationPct: values.deviationPct ?? null, createdAt: new Date() };
-      return { row, newFlags };
-    });
+    const recordedAt = recordedAtOf(input);
+    stored = await transactionOnConnection(ctx.pool, (tx) => storeReading(tx, user, orderId, input, recordedAt));
   } catch (error) {
-    // Two identical requests at once: the unique key let one through.
-    if (!isDuplicateKey(error)) throw error;
-    stored = 'stored-by-another-request';
-  }
-
-  if (stored === 'stored-by-another-request') {
-    const row = await findReadingByKey(db, input.idempotencyKey);
-    if (!row) throw new AppError('conflict', 'The reading could not be stored; send it again.');
-    if (!isRetryOf(row.reading, user, orderId, input)) throw keyTaken();
-    return { reading: toReading(row), created: false };
+    // A retry of a reading already stored, or its key used for another: the key tells.
+    const refused = error instanceof AppError;
+    if (!refused && !isDuplicateKey(error)) throw error;
+    const earlier = await findReadingByKey(ctx.db, input.idempotencyKey);
+    if (earlier && isRetryOf(earlier.reading, user, orderId, input)) return { reading: toReading(earlier), created: false };
+    if (refused) throw error;
+    if (earlier) throw keyTaken();
+    throw new AppError('conflict', 'The reading could not be stored; send it again.');
   }
   await announceNewFlags(ctx, stored.newFlags);
   return { reading: toReading({ reading: stored.row, recordedByName: user.name }), created: true };
+}
+
+/** The transaction of recordReading, on `tx`, a transaction's handle. */
+async function storeReading(
+  tx: Database,
+  user: SessionUser,
+  orderId: number,
+  input: ReadingInputValue,
+  recordedAt: Date,
+): Promise<{ row: ReadingRow; newFlags: FlagRow[] }> {
+  // A second request with the same key waits on the bank's lock, then meets the unique key.
+  const order = assertRecordable(assertVisible(await lockOrderAndBank(tx, orderId), user, orderId), user);
+
+  const outcome = await evaluateReading(tx, order, input, recordedAt);
+  const open = await unclearedFlagKeys(tx, outcome.flags);
+  const drafts = outcome.flags.filter((f, i, all) => all.findIndex((g) => flagKey(g) === flagKey(f)) === i);
+  outcome.evaluation.flags = drafts.map((f) => ({ kind: f.kind, severity: f.severity, message: f.message, alreadyOpen: open.has(flagKey(f)) }));
+
+  const values = {
+    workOrderId: orderId,
+    idempotencyKey: input.idempotencyKey,
+    target: input.target,
+    targetId: input.targetId,
+    input: { ...input },
+    evaluation: outcome.evaluation,
+    engineeringVersion: ENGINEERING_VERSION,
+    band: outcome.band ?? null,
+    deviationPct: outcome.deviationPct ?? null,
+    recordedById: user.id,
+    recordedAt,
+  };
+  const readingId = await insertReading(tx, values);
+  if (outcome.unitResult) {
+    // The drift is fitted up to the unit's latest reading: this one, unless one taken later is stored.
+    const latestAt = outcome.unitLatestAt;
+    const windowEnd = latestAt && latestAt > recordedAt ? latestAt : recordedAt;
+    const drift = await unitDrift(tx, input.targetId, windowEnd);
+    await advanceUnitLatest(tx, { unitId: input.targetId, readingId, recordedAt, ...outcome.unitResult, ...drift });
+  }
+  const newFlags: FlagRow[] = [];
+  const raisedAt = new Date();
+  for (const draft of drafts) {
+    if (open.has(flagKey(draft))) continue;
+    newFlags.push(await insertFlag(tx, { ...draft, siteId: order.siteId, bankId: order.bankId, readingId, raisedAt }));
+  }
+  // The stored row as it would read back (JSON columns hold what was written); no second query.
+  return { row: { id: readingId, ...values, createdAt: new Date() }, newFlags };
 }
 
 /**

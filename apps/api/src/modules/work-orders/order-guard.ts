@@ -19,6 +19,11 @@ const orderById = perDatabase((db) =>
 
 export async function findVisibleOrder(db: Database, user: SessionUser, orderId: number): Promise<WorkOrderRow> {
   const [order] = await orderById(db).execute({ orderId });
+  return assertVisible(order, user, orderId);
+}
+
+/** The rule of findVisibleOrder on an order already read (undefined: it does not exist). */
+export function assertVisible(order: WorkOrderRow | undefined, user: SessionUser, orderId: number): WorkOrderRow {
   const scope = siteScope(user);
   if (!order || (scope !== 'all' && !scope.includes(order.siteId))) {
     throw new AppError('not_found', `Work order ${orderId} does not exist.`);
