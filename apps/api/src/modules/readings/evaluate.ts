@@ -10,7 +10,7 @@ import {
   findContactorPlace,
   findFuseSetPlace,
   findReactorPlace,
-  findUnitPlace,
+  findUnitPlaceForReading,
   latestReadingInput,
   reactorInService,
   unitsOfStep,
@@ -59,7 +59,7 @@ export async function evaluateReading(db: Database, order: WorkOrderRow, input: 
 }
 
 async function evaluateUnit(db: Database, order: WorkOrderRow, input: InputFor<'capacitor-unit'>, recordedAt: Date): Promise<Outcome> {
-  const place = await findUnitPlace(db, input.targetId);
+  const place = await findUnitPlaceForReading(db, input.targetId, recordedAt);
   if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Capacitor unit', input.targetId, order);
   if (place.unit.removedOn) throw removed('Capacitor unit', input.targetId, place.unit.removedOn);
   // Only a detuned step's tuning needs its units and reactor; otherwise the count read with the place will do.
@@ -75,7 +75,7 @@ async function evaluateUnit(db: Database, order: WorkOrderRow, input: InputFor<'
     unitsInStep: place.unitsInStep,
     orderKind: order.kind,
   });
-  outcome.unitLatestAt = place.latestRecordedAt;
+  outcome.unitHistory = { latestAt: place.latestRecordedAt, driftPoints: place.driftPoints };
   if (place.bank.detuned && outcome.unitResult) {
     const legs = outcome.unitResult.legsUF;
     // This reading counts for the step unless a reading taken later is already the unit's latest.

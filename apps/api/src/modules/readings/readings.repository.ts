@@ -1,5 +1,5 @@
 import { projectDrift } from '@varden/engineering';
-import { and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lte, ne, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
 import type { Executor } from '../../access/executor';
 import {
   banks,
@@ -23,6 +23,11 @@ import type { WorkOrderRow } from '../work-orders/order-guard';
 import type { StepUnit } from './evaluate-step';
 
 export type ReadingRow = typeof readings.$inferSelect;
+
+/** The window of history a unit's drift is fitted over, before its latest reading. */
+export const driftWindowMs = 5 * 365.25 * 86_400_000;
+/** The deviation below which a unit is replaced, as the fleet projects it (the policy's replace limit). */
+export const replaceBelowPct = -10;
 
 const readingColumns = {
   reading: readings,
@@ -100,14 +105,16 @@ const placeColumns = {
   },
 };
 
+const unitPlaceColumns = {
+  unit: capacitorUnits,
+  ...placeColumns,
+  unitsInStep: sql<number>`(select count(*) from ${capacitorUnits} as units_in_service where units_in_service.step_id = ${capacitorUnits.stepId} and units_in_service.removed_on is null)`.mapWith(Number),
+  latestRecordedAt: unitLatestEvaluations.recordedAt,
+};
+
 const unitPlace = perDatabase((db) =>
   db
-    .select({
-      unit: capacitorUnits,
-      ...placeColumns,
-      unitsInStep: sql<number>`(select count(*) from ${capacitorUnits} as units_in_service where units_in_service.step_id = ${capacitorUnits.stepId} and units_in_service.removed_on is null)`.mapWith(Number),
-      latestRecordedAt: unitLatestEvaluations.recordedAt,
-    })
+    .select(unitPlaceColumns)
     .from(capacitorUnits)
     .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
     .innerJoin(banks, eq(banks.id, steps.bankId))
@@ -124,6 +131,46 @@ const unitPlace = perDatabase((db) =>
 export async function findUnitPlace(db: Database, unitId: number) {
   const [row] = await unitPlace(db).execute({ unitId });
   return row;
+}
+
+/** The end of the drift window once a reading taken at `at` is stored: the unit's latest reading, this one or one taken later. */
+const windowEndSql = sql`greatest(coalesce(${unitLatestEvaluations.recordedAt}, ${sql.placeholder('recordedAt')}), ${sql.placeholder('recordedAt')})`;
+
+const unitPlaceForReading = perDatabase((db) =>
+  db
+    .select({
+      ...unitPlaceColumns,
+      // The points the unit's drift is fitted over (unitDrift), as JSON [[recorded_at, deviation_pct], …]:
+      // its readings in the five years up to the window's end, read with the place in one round trip.
+      driftPoints: sql<unknown>`(select json_arrayagg(json_array(history.recorded_at, history.deviation_pct)) from ${readings} as history where history.target = 'capacitor-unit' and history.target_id = ${capacitorUnits.id} and history.deviation_pct is not null and history.recorded_at <= ${windowEndSql} and history.recorded_at >= ${windowEndSql} - interval ${sql.raw(String(driftWindowMs / 1000))} second)`,
+    })
+    .from(capacitorUnits)
+    .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
+    .innerJoin(banks, eq(banks.id, steps.bankId))
+    .innerJoin(sites, eq(sites.id, banks.siteId))
+    .leftJoin(unitLatestEvaluations, eq(unitLatestEvaluations.unitId, capacitorUnits.id))
+    .where(eq(capacitorUnits.id, sql.placeholder('unitId')))
+    .prepare(),
+);
+
+export interface DriftPoint {
+  recordedAt: Date;
+  deviationPct: number;
+}
+
+/**
+ * findUnitPlace for a reading taken at `recordedAt`, with the unit's stored readings that its
+ * drift will be fitted over once this one is stored (the window ends at the later of this
+ * reading and the unit's latest).
+ */
+export async function findUnitPlaceForReading(db: Database, unitId: number, recordedAt: Date) {
+  const [row] = await unitPlaceForReading(db).execute({ unitId, recordedAt });
+  if (!row) return undefined;
+  const { driftPoints, ...place } = row;
+  // mysql2 hands a JSON value over parsed; MariaDB writes a datetime in JSON as "2026-12-03 10:00:00.000" (UTC here).
+  const pairs = (typeof driftPoints === 'string' ? JSON.parse(driftPoints) : (driftPoints ?? [])) as Array<[string, number]>;
+  const points: DriftPoint[] = pairs.map(([at, deviationPct]) => ({ recordedAt: new Date(`${at.replace(' ', 'T')}Z`), deviationPct }));
+  return { ...place, driftPoints: points };
 }
 
 export async function findContactorPlace(db: Executor, id: number) {
@@ -249,38 +296,18 @@ export async function insertReading(db: Database, values: ReadingValues): Promis
   return created!.id;
 }
 
-/** The window of history a unit's drift is fitted over, before its latest reading. */
-export const driftWindowMs = 5 * 365.25 * 86_400_000;
-/** The deviation below which a unit is replaced, as the fleet projects it (the policy's replace limit). */
-export const replaceBelowPct = -10;
-
-const driftPointsQuery = perDatabase((db) =>
-  db
-    .select({ recordedAt: readings.recordedAt, deviationPct: readings.deviationPct })
-    .from(readings)
-    .where(
-      and(
-        eq(readings.target, 'capacitor-unit'),
-        eq(readings.targetId, sql.placeholder('unitId')),
-        gte(readings.recordedAt, sql.placeholder('from')),
-        lte(readings.recordedAt, sql.placeholder('to')),
-        isNotNull(readings.deviationPct),
-      ),
-    )
-    .prepare(),
-);
-
 /**
- * The unit's drift fitted (projectDrift) over the five years of its readings up to `windowEnd`,
+ * The unit's drift fitted (projectDrift) over its readings in the five years up to `windowEnd`,
  * the time of the reading behind its latest evaluation: the rate and the projected replacement
  * date stored beside that evaluation, so the fleet dashboard reads one row per unit, never the history.
  */
-export async function unitDrift(db: Database, unitId: number, windowEnd: Date): Promise<{ driftRatePctPerYear: number | null; replaceBy: string | null }> {
-  const points = await driftPointsQuery(db).execute({ unitId, from: new Date(windowEnd.getTime() - driftWindowMs), to: windowEnd });
+export function unitDrift(points: DriftPoint[], windowEnd: Date): { driftRatePctPerYear: number | null; replaceBy: string | null } {
+  const from = windowEnd.getTime() - driftWindowMs;
+  const inWindow = points.filter((p) => p.recordedAt.getTime() >= from && p.recordedAt.getTime() <= windowEnd.getTime());
   const drift =
-    points.length < 2
+    inWindow.length < 2
       ? null
-      : projectDrift({ points: points.map((p) => ({ date: p.recordedAt.toISOString(), deviationPct: p.deviationPct! })), replaceBelowPct });
+      : projectDrift({ points: inWindow.map((p) => ({ date: p.recordedAt.toISOString(), deviationPct: p.deviationPct })), replaceBelowPct });
   return { driftRatePctPerYear: drift?.ratePctPerYear ?? null, replaceBy: drift?.replaceBy?.slice(0, 10) ?? null };
 }
 

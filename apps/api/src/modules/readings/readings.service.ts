@@ -104,9 +104,11 @@ async function storeReading(
   const readingId = await insertReading(tx, values);
   if (outcome.unitResult) {
     // The drift is fitted up to the unit's latest reading: this one, unless one taken later is stored.
-    const latestAt = outcome.unitLatestAt;
+    const latestAt = outcome.unitHistory?.latestAt;
     const windowEnd = latestAt && latestAt > recordedAt ? latestAt : recordedAt;
-    const drift = await unitDrift(tx, input.targetId, windowEnd);
+    const stored = values.deviationPct === null ? [] : [{ recordedAt, deviationPct: values.deviationPct }];
+    const points = [...(outcome.unitHistory?.driftPoints ?? []), ...stored];
+    const drift = unitDrift(points, windowEnd);
     await advanceUnitLatest(tx, { unitId: input.targetId, readingId, recordedAt, ...outcome.unitResult, ...drift });
   }
   const newFlags: FlagRow[] = [];
