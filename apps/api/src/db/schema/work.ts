@@ -137,7 +137,8 @@ export const readings = mysqlTable(
   (t) => [
     uniqueIndex('readings_idempotency').on(t.idempotencyKey),
     index('readings_order').on(t.workOrderId),
-    index('readings_target').on(t.target, t.targetId, t.recordedAt),
+    // deviation_pct rides along so a unit's drift is fitted from the index alone, never the wide rows.
+    index('readings_target').on(t.target, t.targetId, t.recordedAt, t.deviationPct),
   ],
 );
 

@@ -1,0 +1,2 @@
+DROP INDEX `readings_target` ON `readings`;--> statement-breakpoint
+CREATE INDEX `readings_target` ON `readings` (`target`,`target_id`,`recorded_at`,`deviation_pct`);
