@@ -1,6 +1,7 @@
 import type { Pool } from 'mysql2/promise';
 import type { Config } from './config';
 import { createDatabase, type Database } from './db/client';
+import { createTransactionPool, type TransactionPool } from './db/connection-transaction';
 import { createLogger, type Logger } from './logger';
 import { createMailTransport, type MailTransport } from './mail/transport';
 import { createObjectStore, type ObjectStore } from './storage/object-store';
@@ -10,6 +11,8 @@ export interface AppContext {
   config: Config;
   db: Database;
   pool: Pool;
+  /** Connections that never autocommit, for the hot write path's transactions (db/connection-transaction.ts). */
+  transactionPool: TransactionPool;
   store: ObjectStore;
   mail: MailTransport;
   log: Logger;
@@ -21,6 +24,7 @@ export function createContext(config: Config): AppContext {
     config,
     db,
     pool,
+    transactionPool: createTransactionPool(config.DATABASE_URL, config.DB_POOL_SIZE),
     store: createObjectStore(config),
     mail: createMailTransport(config),
     log: createLogger(config),
@@ -31,4 +35,5 @@ export async function closeContext(ctx: AppContext): Promise<void> {
   ctx.store.destroy();
   ctx.mail.close();
   await ctx.pool.end();
+  await ctx.transactionPool.end();
 }

@@ -57,7 +57,7 @@ export async function recordReading(
   let stored: { row: ReadingRow; newFlags: FlagRow[] };
   try {
     const recordedAt = recordedAtOf(input);
-    stored = await transactionOnConnection(ctx.pool, (tx) => storeReading(tx, user, orderId, input, recordedAt));
+    stored = await transactionOnConnection(ctx.transactionPool, (tx) => storeReading(tx, user, orderId, input, recordedAt));
   } catch (error) {
     // A retry of a reading already stored, or its key used for another: the key tells.
     const refused = error instanceof AppError;
