@@ -3,7 +3,9 @@
 // by others until it commits; the next transaction on the same connection starts clean.
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { sql } from 'drizzle-orm';
 import { transactionOnConnection } from '../../apps/api/src/db/connection-transaction';
+import { statement } from '../../apps/api/src/db/statement-batch';
 import { readCache } from '../../apps/api/src/db/schema/index';
 import { startTestApp, unique, type TestApp } from '../support/test-app';
 
@@ -53,5 +55,27 @@ describe('transactionOnConnection', () => {
       ).rejects.toThrow('no');
       expect(await stored(dropped)).toBe(0);
     }
+  });
+
+  test('statements sent together come back mapped as Drizzle maps them; a failing one stops the rest and nothing is kept', async () => {
+    const key = unique('tx-together');
+    const insert = (tx: Parameters<Parameters<typeof transactionOnConnection>[1]>[0], k: string) =>
+      statement(tx.insert(readCache).values({ ...row(k), storedAt: sql.placeholder('at') }).prepare(), { at: new Date('2026-12-03T10:00:00.250Z') }, () => 'inserted');
+    const readBack = (tx: Parameters<Parameters<typeof transactionOnConnection>[1]>[0], k: string) =>
+      statement(
+        tx.select({ key: readCache.cacheKey, storedAt: readCache.storedAt }).from(readCache).where(eq(readCache.cacheKey, sql.placeholder('k'))).prepare(),
+        { k },
+        (rows) => rows,
+      );
+    const answers = await transactionOnConnection(app.ctx.transactionPool, (tx, together) => together([insert(tx, key), readBack(tx, key)], { commit: true }));
+    // The row as Drizzle maps it: a Date from the datetime(3) column, not MariaDB's text.
+    expect(answers).toEqual(['inserted', [{ key, storedAt: new Date('2026-12-03T10:00:00.250Z') }]]);
+    expect(await stored(key)).toBe(1);
+
+    const second = unique('tx-together-failing');
+    await expect(
+      transactionOnConnection(app.ctx.transactionPool, (tx, together) => together([insert(tx, second), insert(tx, key), readBack(tx, second)], { commit: true })),
+    ).rejects.toThrow(/Duplicate entry/);
+    expect(await stored(second)).toBe(0);
   });
 });

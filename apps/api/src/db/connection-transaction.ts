@@ -1,6 +1,7 @@
 import { drizzle } from 'drizzle-orm/mysql2';
 import mysql, { type Pool, type PoolConnection } from 'mysql2/promise';
 import { poolOptions, type Database } from './client';
+import { runTogether, type AnyStatement, type Answers } from './statement-batch';
 import * as schema from './schema/index';
 
 /**
@@ -35,7 +36,8 @@ export type TransactionPool = Pool & { readonly __transactionsOnly: true };
  * that never records a reading opens none.
  */
 export function createTransactionPool(url: string, poolSize: number): TransactionPool {
-  const pool = mysql.createPool(poolOptions(url, poolSize));
+  // multipleStatements for runTogether (db/statement-batch.ts): values still go in as escaped parameters.
+  const pool = mysql.createPool({ ...poolOptions(url, poolSize), multipleStatements: true });
   return pool as TransactionPool;
 }
 
@@ -45,22 +47,36 @@ export function createTransactionPool(url: string, poolSize: number): Transactio
  * connection, which they cannot inside db.transaction(). Use the handle only inside `work`: the
  * connection goes back to the pool when it ends.
  */
-export async function transactionOnConnection<T>(pool: TransactionPool, work: (tx: Database) => Promise<T>): Promise<T> {
+/**
+ * Runs statements of the transaction in one round trip (runTogether); with `commit` the COMMIT
+ * goes with them, and nothing more may run in the transaction after.
+ */
+export type Together = <const S extends readonly AnyStatement[]>(statements: S, options?: { commit?: boolean }) => Promise<Answers<S>>;
+
+export async function transactionOnConnection<T>(pool: TransactionPool, work: (tx: Database, together: Together) => Promise<T>): Promise<T> {
   const connection = await pool.getConnection();
   // A connection whose commit or rollback failed is not trusted again: it is closed, not pooled.
   let trusted = false;
   try {
     const tx = await handleOf(connection);
+    let committed = false;
+    const together: Together = async (statements, options) => {
+      if (committed) throw new Error('the transaction has already committed');
+      const answers = await runTogether(connection, statements, options);
+      if (options?.commit) committed = true;
+      return answers;
+    };
     let result: T;
     try {
       // No BEGIN: the connection does not autocommit, so the first statement begins the transaction.
-      result = await work(tx);
+      result = await work(tx, together);
     } catch (error) {
+      if (committed) throw error;
       await connection.query('rollback');
       trusted = true;
       throw error;
     }
-    await connection.query('commit');
+    if (!committed) await connection.query('commit');
     trusted = true;
     return result;
   } finally {

@@ -14,6 +14,7 @@ import {
   latestReadingInput,
   reactorInService,
   unitsOfStep,
+  type UnitPlaceForReading,
 } from './readings.repository';
 
 const notOnThisBank = (what: string, id: number, order: WorkOrderRow) =>
@@ -29,10 +30,17 @@ const removed = (what: string, id: number, on: string) =>
  * reactor and units) and evaluates it with packages/engineering. Runs inside the transaction
  * that stores the reading, after the bank is locked, so the step's latest evaluations are current.
  */
-export async function evaluateReading(db: Database, order: WorkOrderRow, input: ReadingInputValue, recordedAt: Date): Promise<Outcome> {
+export async function evaluateReading(
+  db: Database,
+  order: WorkOrderRow,
+  input: ReadingInputValue,
+  recordedAt: Date,
+  /** A capacitor unit's place already read in this transaction (unitPlaceForReadingStatement). */
+  read?: { unitPlace: UnitPlaceForReading | undefined },
+): Promise<Outcome> {
   switch (input.target) {
     case 'capacitor-unit':
-      return evaluateUnit(db, order, input, recordedAt);
+      return evaluateUnit(db, order, input, recordedAt, read ? read.unitPlace : await findUnitPlaceForReading(db, input.targetId, recordedAt));
     case 'contactor': {
       const place = await findContactorPlace(db, input.targetId);
       if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Contactor', input.targetId, order);
@@ -58,8 +66,13 @@ export async function evaluateReading(db: Database, order: WorkOrderRow, input: 
   }
 }
 
-async function evaluateUnit(db: Database, order: WorkOrderRow, input: InputFor<'capacitor-unit'>, recordedAt: Date): Promise<Outcome> {
-  const place = await findUnitPlaceForReading(db, input.targetId, recordedAt);
+async function evaluateUnit(
+  db: Database,
+  order: WorkOrderRow,
+  input: InputFor<'capacitor-unit'>,
+  recordedAt: Date,
+  place: UnitPlaceForReading | undefined,
+): Promise<Outcome> {
   if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Capacitor unit', input.targetId, order);
   if (place.unit.removedOn) throw removed('Capacitor unit', input.targetId, place.unit.removedOn);
   // Only a detuned step's tuning needs its units and reactor; otherwise the count read with the place will do.

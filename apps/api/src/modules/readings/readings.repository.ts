@@ -18,6 +18,7 @@ import {
 import { offset } from '../../db/versioned';
 import type { Database } from '../../db/client';
 import { perDatabase } from '../../db/prepared';
+import { runStatement, statement } from '../../db/statement-batch';
 import type { FlagDraft, ReadingTarget } from './evaluation-types';
 import type { WorkOrderRow } from '../work-orders/order-guard';
 import type { StepUnit } from './evaluate-step';
@@ -87,10 +88,10 @@ const orderAndBankLock = perDatabase((db) =>
  * flags are raised once and latest evaluations move forward only, and a reading never lands on
  * an order that moved on meanwhile. `db` is a transaction's handle (db/connection-transaction.ts).
  */
-export async function lockOrderAndBank(db: Database, orderId: number): Promise<WorkOrderRow | undefined> {
-  const [row] = await orderAndBankLock(db).execute({ orderId });
-  return row?.order;
-}
+export const lockOrderAndBankStatement = (db: Database, orderId: number) =>
+  statement(orderAndBankLock(db), { orderId }, (rows): WorkOrderRow | undefined => rows[0]?.order);
+
+export const lockOrderAndBank = (db: Database, orderId: number) => runStatement(lockOrderAndBankStatement(db, orderId));
 
 const placeColumns = {
   step: { id: steps.id, number: steps.number, bankId: steps.bankId },
@@ -163,15 +164,20 @@ export interface DriftPoint {
  * drift will be fitted over once this one is stored (the window ends at the later of this
  * reading and the unit's latest).
  */
-export async function findUnitPlaceForReading(db: Database, unitId: number, recordedAt: Date) {
-  const [row] = await unitPlaceForReading(db).execute({ unitId, recordedAt });
-  if (!row) return undefined;
-  const { driftPoints, ...place } = row;
-  // mysql2 hands a JSON value over parsed; MariaDB writes a datetime in JSON as "2026-12-03 10:00:00.000" (UTC here).
-  const pairs = (typeof driftPoints === 'string' ? JSON.parse(driftPoints) : (driftPoints ?? [])) as Array<[string, number]>;
-  const points: DriftPoint[] = pairs.map(([at, deviationPct]) => ({ recordedAt: new Date(`${at.replace(' ', 'T')}Z`), deviationPct }));
-  return { ...place, driftPoints: points };
-}
+export const unitPlaceForReadingStatement = (db: Database, unitId: number, recordedAt: Date) =>
+  statement(unitPlaceForReading(db), { unitId, recordedAt }, (rows) => {
+    const row = rows[0];
+    if (!row) return undefined;
+    const { driftPoints, ...place } = row;
+    // mysql2 hands a JSON value over parsed; MariaDB writes a datetime in JSON as "2026-12-03 10:00:00.000" (UTC here).
+    const pairs = (typeof driftPoints === 'string' ? JSON.parse(driftPoints) : (driftPoints ?? [])) as Array<[string, number]>;
+    const points: DriftPoint[] = pairs.map(([at, deviationPct]) => ({ recordedAt: new Date(`${at.replace(' ', 'T')}Z`), deviationPct }));
+    return { ...place, driftPoints: points };
+  });
+
+export type UnitPlaceForReading = NonNullable<Awaited<ReturnType<typeof findUnitPlaceForReading>>>;
+
+export const findUnitPlaceForReading = (db: Database, unitId: number, recordedAt: Date) => runStatement(unitPlaceForReadingStatement(db, unitId, recordedAt));
 
 export async function findContactorPlace(db: Executor, id: number) {
   const [row] = await db
@@ -291,10 +297,8 @@ const readingInsert = perDatabase((db) =>
 
 type ReadingValues = Omit<typeof readings.$inferInsert, 'id' | 'createdAt'>;
 
-export async function insertReading(db: Database, values: ReadingValues): Promise<number> {
-  const [created] = await readingInsert(db).execute({ band: null, deviationPct: null, ...values });
-  return created!.id;
-}
+export const insertReadingStatement = (db: Database, values: ReadingValues) =>
+  statement(readingInsert(db), { band: null, deviationPct: null, ...values }, (created) => created[0]!.id);
 
 /**
  * The unit's drift fitted (projectDrift) over its readings in the five years up to `windowEnd`,
@@ -319,7 +323,8 @@ const unitLatestUpsert = perDatabase((db) =>
     .insert(unitLatestEvaluations)
     .values({
       unitId: sql.placeholder('unitId'),
-      readingId: sql.placeholder('readingId'),
+      // The reading inserted just before on this connection (insertReadingStatement, sent with this one).
+      readingId: sql`last_insert_id()`,
       band: sql.placeholder('band'),
       deviationPct: sql.placeholder('deviationPct'),
       kvarAtRated: sql.placeholder('kvarAtRated'),
@@ -351,13 +356,13 @@ const unitLatestUpsert = perDatabase((db) =>
  * a locking read then an insert: SELECT … FOR UPDATE on a unit with no row yet takes a gap lock,
  * and two banks' first readings then deadlock on each other's gap when they insert (seen under
  * the field load test). Readings of one unit are already serialised by the bank lock; the IF
- * keeps the later reading when they arrive out of order.
+ * keeps the later reading when they arrive out of order. Sent right after insertReadingStatement,
+ * in the same round trip (runTogether): the reading it points to is LAST_INSERT_ID().
  */
-export async function advanceUnitLatest(
+export const advanceUnitLatestStatement = (
   db: Database,
   values: {
     unitId: number;
-    readingId: number;
     band: NonNullable<ReadingRow['band']>;
     deviationPct: number;
     kvarAtRated: number;
@@ -366,9 +371,7 @@ export async function advanceUnitLatest(
     driftRatePctPerYear: number | null;
     replaceBy: string | null;
   },
-): Promise<void> {
-  await unitLatestUpsert(db).execute(values);
-}
+) => statement(unitLatestUpsert(db), values, () => undefined);
 
 /** Flags not yet cleared (open or in hand) on these targets, as "kind target id" keys. */
 export async function unclearedFlagKeys(db: Executor, drafts: FlagDraft[]): Promise<Set<string>> {

@@ -11,20 +11,23 @@ import { cacheKey, readThrough } from '../../db/read-cache';
 import { AppError } from '../../http/app-error';
 import { notifyReplaceFlag } from '../flags/flag-mail';
 import { assertRecordable, assertVisible, findVisibleOrder } from '../work-orders/order-guard';
-import { transactionOnConnection } from '../../db/connection-transaction';
+import { transactionOnConnection, type Together } from '../../db/connection-transaction';
+import { runStatement } from '../../db/statement-batch';
 import { evaluateReading } from './evaluate';
 import type { ReadingInputValue } from './evaluation-types';
 import {
-  advanceUnitLatest,
+  advanceUnitLatestStatement,
   findReadingByKey,
   flagKey,
   insertFlag,
-  insertReading,
+  insertReadingStatement,
   lockOrderAndBank,
+  lockOrderAndBankStatement,
   readingsOfOrder,
   siteOfUnit,
   unclearedFlagKeys,
   unitDrift,
+  unitPlaceForReadingStatement,
   unitReadingPage,
   type ReadingRow,
 } from './readings.repository';
@@ -57,7 +60,7 @@ export async function recordReading(
   let stored: { row: ReadingRow; newFlags: FlagRow[] };
   try {
     const recordedAt = recordedAtOf(input);
-    stored = await transactionOnConnection(ctx.transactionPool, (tx) => storeReading(tx, user, orderId, input, recordedAt));
+    stored = await transactionOnConnection(ctx.transactionPool, (tx, together) => storeReading(tx, together, user, orderId, input, recordedAt));
   } catch (error) {
     // A retry of a reading already stored, or its key used for another: the key tells.
     const refused = error instanceof AppError;
@@ -72,21 +75,34 @@ export async function recordReading(
   return { reading: toReading({ reading: stored.row, recordedByName: user.name }), created: true };
 }
 
-/** The transaction of recordReading, on `tx`, a transaction's handle. */
+/**
+ * The transaction of recordReading, on `tx`, a transaction's handle. For a capacitor unit (the
+ * common reading) it takes three round trips: the lock with the unit's place, the flags already
+ * open if the reading raises any, and the writes with the commit.
+ */
 async function storeReading(
   tx: Database,
+  together: Together,
   user: SessionUser,
   orderId: number,
   input: ReadingInputValue,
   recordedAt: Date,
 ): Promise<{ row: ReadingRow; newFlags: FlagRow[] }> {
   // A second request with the same key waits on the bank's lock, then meets the unique key.
-  const order = assertRecordable(assertVisible(await lockOrderAndBank(tx, orderId), user, orderId), user);
+  // For a unit, its place is read in the same round trip, after the lock and so under it.
+  const [locked, read] =
+    input.target === 'capacitor-unit'
+      ? await together([lockOrderAndBankStatement(tx, orderId), unitPlaceForReadingStatement(tx, input.targetId, recordedAt)]).then(
+          ([order, unitPlace]) => [order, { unitPlace }] as const,
+        )
+      : ([await lockOrderAndBank(tx, orderId), undefined] as const);
+  const order = assertRecordable(assertVisible(locked, user, orderId), user);
 
-  const outcome = await evaluateReading(tx, order, input, recordedAt);
+  const outcome = await evaluateReading(tx, order, input, recordedAt, read);
   const open = await unclearedFlagKeys(tx, outcome.flags);
   const drafts = outcome.flags.filter((f, i, all) => all.findIndex((g) => flagKey(g) === flagKey(f)) === i);
   outcome.evaluation.flags = drafts.map((f) => ({ kind: f.kind, severity: f.severity, message: f.message, alreadyOpen: open.has(flagKey(f)) }));
+  const toRaise = drafts.filter((draft) => !open.has(flagKey(draft)));
 
   const values = {
     workOrderId: orderId,
@@ -101,20 +117,24 @@ async function storeReading(
     recordedById: user.id,
     recordedAt,
   };
-  const readingId = await insertReading(tx, values);
+  const insert = insertReadingStatement(tx, values);
+  // With no flag to raise, the commit goes with the writes.
+  const commit = toRaise.length === 0;
+  let readingId: number;
   if (outcome.unitResult) {
     // The drift is fitted up to the unit's latest reading: this one, unless one taken later is stored.
     const latestAt = outcome.unitHistory?.latestAt;
     const windowEnd = latestAt && latestAt > recordedAt ? latestAt : recordedAt;
     const stored = values.deviationPct === null ? [] : [{ recordedAt, deviationPct: values.deviationPct }];
-    const points = [...(outcome.unitHistory?.driftPoints ?? []), ...stored];
-    const drift = unitDrift(points, windowEnd);
-    await advanceUnitLatest(tx, { unitId: input.targetId, readingId, recordedAt, ...outcome.unitResult, ...drift });
+    const drift = unitDrift([...(outcome.unitHistory?.driftPoints ?? []), ...stored], windowEnd);
+    const advance = advanceUnitLatestStatement(tx, { unitId: input.targetId, recordedAt, ...outcome.unitResult, ...drift });
+    [readingId] = await together([insert, advance], { commit });
+  } else {
+    [readingId] = commit ? await together([insert], { commit }) : [await runStatement(insert)];
   }
   const newFlags: FlagRow[] = [];
   const raisedAt = new Date();
-  for (const draft of drafts) {
-    if (open.has(flagKey(draft))) continue;
+  for (const draft of toRaise) {
     newFlags.push(await insertFlag(tx, { ...draft, siteId: order.siteId, bankId: order.bankId, readingId, raisedAt }));
   }
   // The stored row as it would read back (JSON columns hold what was written); no second query.

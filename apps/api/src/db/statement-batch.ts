@@ -1,0 +1,113 @@
+import * as drizzleOrm from 'drizzle-orm';
+import type { PoolConnection, ResultSetHeader } from 'mysql2/promise';
+
+/**
+ * Several prepared queries sent to MariaDB in one round trip, each answer mapped as Drizzle maps
+ * it. On this machine a round trip costs the API more CPU than most statements do
+ * (docs/performance.md), so the hot write path sends what does not depend on an earlier answer
+ * together. Statements run in order and stop at the first error, which is thrown.
+ *
+ * Only for connections opened with multipleStatements (db/connection-transaction.ts). Every
+ * value still goes in as a `?` parameter that mysql2 escapes; no text is ever spliced into SQL.
+ */
+
+type Field = { path: string[]; field: unknown };
+/** Drizzle's row mapper: exported at run time by drizzle-orm 0.45, left out of its types (internal). */
+const exported = (drizzleOrm as unknown as { mapResultRow?: (fields: Field[], row: unknown[], joins?: Record<string, boolean>) => unknown }).mapResultRow;
+if (typeof exported !== 'function') throw new Error('statement-batch: drizzle-orm no longer exports mapResultRow; see the pinned version');
+const mapResultRow = exported;
+const { fillPlaceholders } = drizzleOrm;
+
+/** A Drizzle prepared query: what `.prepare()` returns. */
+export interface PreparedQuery<Result> {
+  execute(values?: Record<string, unknown>): Promise<Result>;
+}
+
+/** A prepared query with its values and what its caller makes of the answer. */
+export interface Statement<Result, Value> {
+  prepared: PreparedQuery<Result>;
+  values: Record<string, unknown>;
+  map: (result: Result) => Value;
+}
+
+export function statement<Result, Value>(prepared: PreparedQuery<Result>, values: Record<string, unknown>, map: (result: Result) => Value): Statement<Result, Value> {
+  return { prepared, values, map };
+}
+
+/** One statement on its own (its prepared query's usual round trip). */
+export async function runStatement<Result, Value>(s: Statement<Result, Value>): Promise<Value> {
+  return s.map(await s.prepared.execute(s.values));
+}
+
+/**
+ * What is read of a mysql2 prepared query of drizzle-orm 0.45 (pinned in package.json): the SQL
+ * it sends, its parameters and how it maps rows. Checked at run time, so another Drizzle version
+ * that changes these fails loudly in the tests rather than quietly here.
+ */
+interface PreparedInternals {
+  query: { sql: string };
+  rawQuery: { sql: string };
+  params: unknown[];
+  fields?: Field[];
+  joinsNotNullableMap?: Record<string, boolean>;
+  returningIds?: Array<{ path: string[] }>;
+  customResultMapper?: unknown;
+}
+
+function internalsOf(prepared: PreparedQuery<unknown>): PreparedInternals {
+  const p = prepared as unknown as Partial<PreparedInternals>;
+  if (typeof p.query?.sql !== 'string' || typeof p.rawQuery?.sql !== 'string' || !Array.isArray(p.params) || p.customResultMapper) {
+    throw new Error('statement-batch: this Drizzle prepared query does not have the shape of drizzle-orm 0.45 (query, rawQuery, params)');
+  }
+  return p as PreparedInternals;
+}
+
+/** Drizzle's own choice for its mysql2 queries: dates as the text MariaDB sends, mapped by their columns. */
+const typeCast = (field: { type: string; string: () => string | null }, next: () => unknown) =>
+  field.type === 'TIMESTAMP' || field.type === 'DATETIME' || field.type === 'DATE' ? field.string() : next();
+
+/** Any statement, whatever its answer. */
+export interface AnyStatement {
+  prepared: PreparedQuery<unknown>;
+  values: Record<string, unknown>;
+  map: (result: never) => unknown;
+}
+
+export type Answers<T extends readonly AnyStatement[]> = { -readonly [K in keyof T]: T[K]['map'] extends (result: never) => infer V ? V : never };
+
+/**
+ * Runs the statements in one round trip on `connection` and returns each one's mapped answer.
+ * With `commit`, a COMMIT goes last in the same round trip.
+ */
+export async function runTogether<const T extends readonly AnyStatement[]>(
+  connection: PoolConnection,
+  statements: T,
+  options: { commit?: boolean } = {},
+): Promise<Answers<T>> {
+  const parts = statements.map((s) => {
+    const internals = internalsOf(s.prepared);
+    return { s, internals, params: fillPlaceholders(internals.params, s.values) };
+  });
+  const texts = parts.map(({ internals }) => (internals.fields ? internals.query.sql : internals.rawQuery.sql));
+  if (options.commit) texts.push('commit');
+  if (texts.length < 2) throw new Error('runTogether needs two statements or more; run one with runStatement');
+  const [results] = (await connection.query({ sql: texts.join(';\n'), rowsAsArray: true, typeCast }, parts.flatMap((p) => p.params))) as unknown as [
+    unknown[],
+    unknown,
+  ];
+  return parts.map(({ s, internals }, i) => {
+    const result = results[i];
+    if (internals.fields) {
+      const fields = internals.fields;
+      return (s.map as (r: unknown) => unknown)((result as unknown[][]).map((row) => mapResultRow(fields, row, internals.joinsNotNullableMap)));
+    }
+    const header = result as ResultSetHeader;
+    if (internals.returningIds?.length) {
+      // As Drizzle's $returningId(): the auto-increment ids of the rows inserted, under the key's name.
+      const key = internals.returningIds[0]!.path[0]!;
+      const ids = Array.from({ length: header.affectedRows }, (_, j) => ({ [key]: header.insertId + j }));
+      return (s.map as (r: unknown) => unknown)(ids);
+    }
+    return (s.map as (r: unknown) => unknown)(header);
+  }) as Answers<T>;
+}
