@@ -62,7 +62,7 @@ export async function fleetOverview(db: Database, scope: SiteScope, today = new 
       .from(workOrders)
       .where(and(inArray(workOrders.siteId, siteIds), lt(workOrders.dueOn, todayIso), notInArray(workOrders.state, [...closedStates])))
       .orderBy(asc(workOrders.dueOn), asc(workOrders.id)),
-    // Each unit's drift is fitted when its reading is stored (refreshUnitDrift): one row per unit, never the history.
+    // Each unit's drift is fitted when its reading is stored (readings.service, unitDrift): one row per unit, never the history.
     db
       .select({
         unitId: capacitorUnits.id,

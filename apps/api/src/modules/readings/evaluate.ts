@@ -1,4 +1,6 @@
 import type { Database } from '../../db/client';
+import type { Together } from '../../db/connection-transaction';
+import { runStatement } from '../../db/statement-batch';
 import { AppError } from '../../http/app-error';
 import type { WorkOrderRow } from '../work-orders/order-guard';
 import { evaluateCapacitorReading } from './evaluate-capacitor';
@@ -12,8 +14,9 @@ import {
   findReactorPlace,
   findUnitPlaceForReading,
   latestReadingInput,
-  reactorInService,
+  reactorInServiceStatement,
   unitsOfStep,
+  unitsOfStepStatement,
   type UnitPlaceForReading,
 } from './readings.repository';
 
@@ -35,12 +38,15 @@ export async function evaluateReading(
   order: WorkOrderRow,
   input: ReadingInputValue,
   recordedAt: Date,
-  /** A capacitor unit's place already read in this transaction (unitPlaceForReadingStatement). */
-  read?: { unitPlace: UnitPlaceForReading | undefined },
+  /**
+   * Inside transactionOnConnection: its `together`, and a capacitor unit's place already read in
+   * the transaction (unitPlaceForReadingStatement).
+   */
+  read?: { together: Together; unitPlace: UnitPlaceForReading | undefined },
 ): Promise<Outcome> {
   switch (input.target) {
     case 'capacitor-unit':
-      return evaluateUnit(db, order, input, recordedAt, read ? read.unitPlace : await findUnitPlaceForReading(db, input.targetId, recordedAt));
+      return evaluateUnit(db, order, input, recordedAt, read ? read.unitPlace : await findUnitPlaceForReading(db, input.targetId, recordedAt), read?.together);
     case 'contactor': {
       const place = await findContactorPlace(db, input.targetId);
       if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Contactor', input.targetId, order);
@@ -72,13 +78,13 @@ async function evaluateUnit(
   input: InputFor<'capacitor-unit'>,
   recordedAt: Date,
   place: UnitPlaceForReading | undefined,
+  together?: Together,
 ): Promise<Outcome> {
   if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Capacitor unit', input.targetId, order);
   if (place.unit.removedOn) throw removed('Capacitor unit', input.targetId, place.unit.removedOn);
   // Only a detuned step's tuning needs its units and reactor; otherwise the count read with the place will do.
-  const inService = place.bank.detuned ? await reactorInService(db, place.step.id) : null;
+  const [inService, stepUnits] = place.bank.detuned ? await stepOf(db, place.step.id, together) : [null, []];
   const reactor = inService?.reactor ?? null;
-  const stepUnits = place.bank.detuned ? await unitsOfStep(db, place.step.id) : [];
   const outcome = evaluateCapacitorReading(input, {
     unit: place.unit,
     step: place.step,
@@ -112,6 +118,12 @@ async function evaluateReactor(db: Database, order: WorkOrderRow, input: InputFo
     addStepTuning(outcome, evaluateStepTuning({ site: place.site, bank: place.bank, step: place.step, reactor: place.reactor, units, measuredInductanceMH }));
   }
   return outcome;
+}
+
+/** A detuned step's reactor in service and its units, in one round trip when the transaction allows. */
+async function stepOf(db: Database, stepId: number, together: Together | undefined) {
+  const statements = [reactorInServiceStatement(db, stepId), unitsOfStepStatement(db, stepId)] as const;
+  return together ? together(statements) : Promise.all([runStatement(statements[0]), runStatement(statements[1])]);
 }
 
 function addStepTuning(outcome: Outcome, tuning: ReturnType<typeof evaluateStepTuning>): void {

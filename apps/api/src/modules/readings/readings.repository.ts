@@ -239,14 +239,15 @@ const stepReactor = perDatabase((db) =>
 );
 
 /** The reactor in service on a step, with the inductances its latest reading measured (undefined when it measured none). */
-export async function reactorInService(db: Database, stepId: number) {
-  const [row] = await stepReactor(db).execute({ stepId });
-  if (!row) return null;
-  const { latestInductanceMH, ...reactor } = row;
-  // mysql2 hands a JSON value over parsed; text (a driver that does not) is parsed here.
-  const measured: unknown = typeof latestInductanceMH === 'string' ? JSON.parse(latestInductanceMH) : latestInductanceMH;
-  return { reactor, latestInductanceMH: measured ?? undefined };
-}
+export const reactorInServiceStatement = (db: Database, stepId: number) =>
+  statement(stepReactor(db), { stepId }, (rows) => {
+    const row = rows[0];
+    if (!row) return null;
+    const { latestInductanceMH, ...reactor } = row;
+    // mysql2 hands a JSON value over parsed; text (a driver that does not) is parsed here.
+    const measured: unknown = typeof latestInductanceMH === 'string' ? JSON.parse(latestInductanceMH) : latestInductanceMH;
+    return { reactor, latestInductanceMH: measured ?? undefined };
+  });
 
 const stepUnits = perDatabase((db) =>
   db
@@ -259,10 +260,12 @@ const stepUnits = perDatabase((db) =>
 );
 
 /** The units in service in a step with the legs of their latest evaluation. */
-export async function unitsOfStep(db: Database, stepId: number): Promise<Array<StepUnit & { recordedAt: Date | null }>> {
-  const rows = await stepUnits(db).execute({ stepId });
-  return rows.map((r) => ({ unit: r.unit, legsUF: r.legsUF ?? undefined, recordedAt: r.recordedAt }));
-}
+export const unitsOfStepStatement = (db: Database, stepId: number) =>
+  statement(stepUnits(db), { stepId }, (rows): Array<StepUnit & { recordedAt: Date | null }> =>
+    rows.map((r) => ({ unit: r.unit, legsUF: r.legsUF ?? undefined, recordedAt: r.recordedAt })),
+  );
+
+export const unitsOfStep = (db: Database, stepId: number) => runStatement(unitsOfStepStatement(db, stepId));
 
 /** The newest earlier reading of a target, by the time it was taken. */
 export async function latestReadingInput(db: Executor, target: ReadingTarget, targetId: number) {

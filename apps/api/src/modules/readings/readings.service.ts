@@ -93,7 +93,7 @@ async function storeReading(
   const [locked, read] =
     input.target === 'capacitor-unit'
       ? await together([lockOrderAndBankStatement(tx, orderId), unitPlaceForReadingStatement(tx, input.targetId, recordedAt)]).then(
-          ([order, unitPlace]) => [order, { unitPlace }] as const,
+          ([order, unitPlace]) => [order, { together, unitPlace }] as const,
         )
       : ([await lockOrderAndBank(tx, orderId), undefined] as const);
   const order = assertRecordable(assertVisible(locked, user, orderId), user);
