@@ -26,6 +26,25 @@ async function getJson(path: string, cookie: string) {
   return { status: res.status, body: res.status === 200 ? await res.json() : undefined, type: res.headers.get('content-type') };
 }
 
+describe('bumpReadRevision', () => {
+  test('writers that call together share one UPDATE; one that calls while it is on its way waits for the next', async () => {
+    const before = await revision();
+    const together = Array.from({ length: 10 }, () => bumpReadRevision(app.ctx.db));
+    expect(new Set(together).size).toBe(1);
+    await Promise.all(together);
+    const after = await revision();
+    expect(after).toBeGreaterThan(before);
+
+    const first = bumpReadRevision(app.ctx.db);
+    await new Promise((resolve) => setImmediate(resolve)); // its UPDATE is on its way now
+    const second = bumpReadRevision(app.ctx.db);
+    expect(second).not.toBe(first);
+    await second;
+    // The second caller's write is behind a revision moved on after the first UPDATE's.
+    expect(await revision()).toBeGreaterThanOrEqual(after + 2);
+  });
+});
+
 describe('readThrough', () => {
   test('computes once per revision and quarter hour, then again after a write or when the quarter hour ends', async () => {
     const key = unique('test-key');

@@ -30,10 +30,10 @@ export type TransactionPool = Pool & { readonly __transactionsOnly: true };
 
 /**
  * A second pool, for the hot write path, its connections set to autocommit = 0: each statement
- * then joins the transaction the first one began, until COMMIT or ROLLBACK, so a transaction costs no separate BEGIN round trip (on this 2-core machine every round trip
- * costs the API about 50 µs of CPU in the socket write alone, docs/performance.md). A connection
- * is set so the first time transactionOnConnection has it; connections open lazily, so a process
- * that never records a reading opens none.
+ * then joins the transaction the first one began, until COMMIT or ROLLBACK, so a transaction
+ * costs no separate BEGIN round trip (each round trip costs CPU in the API and in MariaDB,
+ * docs/performance.md). A connection is set so the first time transactionOnConnection has it;
+ * connections open lazily, so a process that never records a reading opens none.
  */
 export function createTransactionPool(url: string, poolSize: number): TransactionPool {
   // multipleStatements for runTogether (db/statement-batch.ts): values still go in as escaped parameters.
@@ -42,17 +42,17 @@ export function createTransactionPool(url: string, poolSize: number): Transactio
 }
 
 /**
- * Runs `work` in one transaction on one connection of a transaction pool and commits, or rolls
- * back and throws. Inside `work`, prepared queries (db/prepared.ts) run on the transaction's own
- * connection, which they cannot inside db.transaction(). Use the handle only inside `work`: the
- * connection goes back to the pool when it ends.
- */
-/**
  * Runs statements of the transaction in one round trip (runTogether); with `commit` the COMMIT
  * goes with them, and nothing more may run in the transaction after.
  */
 export type Together = <const S extends readonly AnyStatement[]>(statements: S, options?: { commit?: boolean }) => Promise<Answers<S>>;
 
+/**
+ * Runs `work` in one transaction on one connection of a transaction pool and commits, or rolls
+ * back and throws. Inside `work`, prepared queries (db/prepared.ts) run on the transaction's own
+ * connection, which they cannot inside db.transaction(). Use the handle only inside `work`: the
+ * connection goes back to the pool when it ends.
+ */
 export async function transactionOnConnection<T>(pool: TransactionPool, work: (tx: Database, together: Together) => Promise<T>): Promise<T> {
   const connection = await pool.getConnection();
   // A connection whose commit or rollback failed is not trusted again: it is closed, not pooled.
@@ -71,7 +71,11 @@ export async function transactionOnConnection<T>(pool: TransactionPool, work: (t
       // No BEGIN: the connection does not autocommit, so the first statement begins the transaction.
       result = await work(tx, together);
     } catch (error) {
-      if (committed) throw error;
+      // Committed already: the transaction ended cleanly, whatever failed after.
+      if (committed) {
+        trusted = true;
+        throw error;
+      }
       await connection.query('rollback');
       trusted = true;
       throw error;
