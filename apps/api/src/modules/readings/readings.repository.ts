@@ -106,41 +106,16 @@ const placeColumns = {
   },
 };
 
-const unitPlaceColumns = {
-  unit: capacitorUnits,
-  ...placeColumns,
-  unitsInStep: sql<number>`(select count(*) from ${capacitorUnits} as units_in_service where units_in_service.step_id = ${capacitorUnits.stepId} and units_in_service.removed_on is null)`.mapWith(Number),
-  latestRecordedAt: unitLatestEvaluations.recordedAt,
-};
-
-const unitPlace = perDatabase((db) =>
-  db
-    .select(unitPlaceColumns)
-    .from(capacitorUnits)
-    .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
-    .innerJoin(banks, eq(banks.id, steps.bankId))
-    .innerJoin(sites, eq(sites.id, banks.siteId))
-    .leftJoin(unitLatestEvaluations, eq(unitLatestEvaluations.unitId, capacitorUnits.id))
-    .where(eq(capacitorUnits.id, sql.placeholder('unitId')))
-    .prepare(),
-);
-
-/**
- * A unit with its step, bank and site, how many units are in service on its step, and when the
- * reading behind its latest evaluation was taken (null before its first).
- */
-export async function findUnitPlace(db: Database, unitId: number) {
-  const [row] = await unitPlace(db).execute({ unitId });
-  return row;
-}
-
 /** The end of the drift window once a reading taken at `at` is stored: the unit's latest reading, this one or one taken later. */
 const windowEndSql = sql`greatest(coalesce(${unitLatestEvaluations.recordedAt}, ${sql.placeholder('recordedAt')}), ${sql.placeholder('recordedAt')})`;
 
 const unitPlaceForReading = perDatabase((db) =>
   db
     .select({
-      ...unitPlaceColumns,
+      unit: capacitorUnits,
+      ...placeColumns,
+      unitsInStep: sql<number>`(select count(*) from ${capacitorUnits} as units_in_service where units_in_service.step_id = ${capacitorUnits.stepId} and units_in_service.removed_on is null)`.mapWith(Number),
+      latestRecordedAt: unitLatestEvaluations.recordedAt,
       // The points the unit's drift is fitted over (unitDrift), as JSON [[recorded_at, deviation_pct], …]:
       // its readings in the five years up to the window's end, read with the place in one round trip.
       driftPoints: sql<unknown>`(select json_arrayagg(json_array(history.recorded_at, history.deviation_pct)) from ${readings} as history where history.target = 'capacitor-unit' and history.target_id = ${capacitorUnits.id} and history.deviation_pct is not null and history.recorded_at <= ${windowEndSql} and history.recorded_at >= ${windowEndSql} - interval ${sql.raw(String(driftWindowMs / 1000))} second)`,
@@ -178,6 +153,13 @@ export const unitPlaceForReadingStatement = (db: Database, unitId: number, recor
 export type UnitPlaceForReading = NonNullable<Awaited<ReturnType<typeof findUnitPlaceForReading>>>;
 
 export const findUnitPlaceForReading = (db: Database, unitId: number, recordedAt: Date) => runStatement(unitPlaceForReadingStatement(db, unitId, recordedAt));
+
+/**
+ * A unit with its step, bank and site, how many units are in service on its step, and when the
+ * reading behind its latest evaluation was taken (null before its first): the same query as a
+ * reading's, its drift window ending now.
+ */
+export const findUnitPlace = (db: Database, unitId: number) => findUnitPlaceForReading(db, unitId, new Date());
 
 export async function findContactorPlace(db: Executor, id: number) {
   const [row] = await db
