@@ -28,6 +28,19 @@ export default defineConfig({
               name: 'framework',
               test: /node_modules[\\/](react|react-dom|scheduler|react-router|react-router-dom|@tanstack[\\/]query-core|@tanstack[\\/]react-query|zod)[\\/]/,
             },
+            {
+              // Vite's preload helper, which the small entry (main.tsx) uses to import the app: its own
+              // chunk, or it would land in the app's and the entry would load the framework with it.
+              name: 'boot',
+              test: /vite[\\/]preload-helper/,
+              priority: 2,
+            },
+            {
+              // The app's own modules every page runs (start, router, shell, session, paths, the API
+              // client): one chunk beside the framework rather than a dozen files of a few hundred bytes.
+              name: 'app',
+              test: /apps[\\/]web[\\/]src[\\/](config[\\/]|lib[\\/](api-client|class-names|date-format|notices|server-table)\.ts$|features[\\/]auth[\\/](api|lib)[\\/]|app[\\/](router|provider|query-client|first-view)\.tsx?$|app[\\/]routes[\\/](app-shell|signed-in-pages|current-section)\.tsx?$)|packages[\\/]schemas[\\/]src[\\/](common|readings|work-orders|auth|session)[^\\/]*\.ts$/,
+            },
           ],
         },
       },

@@ -96,7 +96,7 @@ export function createApp(ctx: AppContext): express.Express {
   api.use(notFoundHandler);
   app.use('/api', api);
 
-  serveWebApp(app, ctx.config.WEB_DIST_DIR);
+  serveWebApp(app, ctx.config.WEB_DIST_DIR, ctx.log);
   app.use(errorMiddleware);
   return app;
 }

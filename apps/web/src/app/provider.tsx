@@ -1,8 +1,7 @@
-import { QueryClientProvider } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
-import { createQueryClient } from './query-client';
+import { QueryClientProvider, type QueryClient } from '@tanstack/react-query';
+import type { ReactNode } from 'react';
 
-export function AppProvider({ children }: { children: ReactNode }) {
-  const [queryClient] = useState(createQueryClient);
-  return <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
+/** The app's providers around the router; main.tsx makes the one query client the router's loaders share. */
+export function AppProvider({ client, children }: { client: QueryClient; children: ReactNode }) {
+  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
 }

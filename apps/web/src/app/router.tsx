@@ -1,6 +1,6 @@
-import { type QueryClient, useQueryClient } from '@tanstack/react-query';
-import { useState, type ComponentType } from 'react';
-import { createBrowserRouter, RouterProvider, type LoaderFunction, type RouteObject } from 'react-router-dom';
+import type { QueryClient } from '@tanstack/react-query';
+import type { ComponentType } from 'react';
+import type { LoaderFunction, RouteObject } from 'react-router-dom';
 import { RootErrorBoundary, SectionErrorBoundary } from '../components/errors/route-error';
 import { paths } from '../config/paths';
 import { AppShell, ShellFallback, shellLoader } from './routes/app-shell';
@@ -14,17 +14,23 @@ import { workOrderRoutes } from './routes/work-orders/work-orders-routes';
 export type RouteModule = {
   default: ComponentType;
   clientLoader?: (queryClient: QueryClient) => LoaderFunction;
+  /** What the page's first render needs loaded beyond its data, awaited before hydrating a first view drawn on the server. */
+  firstViewReady?: () => Promise<unknown>;
 };
 
+/** A route's `handle`: what prepareFirstView (first-view.ts) awaits before hydrating. */
+export type PageHandle = { firstViewReady?: () => Promise<unknown> };
+
 /** Turns a loaded page module into React Router's route properties (`lazy: () => import(…).then(page)`). */
-export type PageMapper = (module: RouteModule) => Pick<RouteObject, 'Component' | 'loader'>;
+export type PageMapper = (module: RouteModule) => Pick<RouteObject, 'Component' | 'loader' | 'handle'>;
 
 /** Maps a lazily loaded page module onto React Router's route properties. */
 const toRoute =
   (queryClient: QueryClient): PageMapper =>
-  ({ default: Component, clientLoader }: RouteModule) => ({
+  ({ default: Component, clientLoader, firstViewReady }: RouteModule) => ({
     Component,
     ...(clientLoader ? { loader: clientLoader(queryClient) } : {}),
+    ...(firstViewReady ? { handle: { firstViewReady } satisfies PageHandle } : {}),
   });
 
 /** One page: its path, its lazily loaded module, and a boundary so a failing page keeps the frame. */
@@ -78,14 +84,4 @@ export function appRoutes(queryClient: QueryClient): RouteObject[] {
       ],
     },
   ];
-}
-
-export function createAppRouter(queryClient: QueryClient) {
-  return createBrowserRouter(appRoutes(queryClient));
-}
-
-export function AppRouter() {
-  const queryClient = useQueryClient();
-  const [router] = useState(() => createAppRouter(queryClient));
-  return <RouterProvider router={router} />;
 }

@@ -100,6 +100,16 @@ export type ApiRequestOptions<T> = {
   acceptStatuses?: readonly number[];
 };
 
+type Transport = (path: string, init: RequestInit) => Promise<Response>;
+
+/** The browser's fetch, or the server render's (entry-server.tsx), which adds the visitor's cookie. */
+let transport: Transport = (path, init) => fetch(path, init);
+
+/** For the server render only: where its requests go and with which cookie. */
+export function setApiTransport(next: Transport): void {
+  transport = next;
+}
+
 export async function apiRequest<T>(path: string, options: ApiRequestOptions<T>): Promise<T> {
   const { method = 'GET', body, parse, signal, headers, acceptStatuses = [] } = options;
   const init: RequestInit = {
@@ -116,7 +126,7 @@ export async function apiRequest<T>(path: string, options: ApiRequestOptions<T>)
 
   let response: Response;
   try {
-    response = await fetch(path, init);
+    response = await transport(path, init);
   } catch (error) {
     // A cancelled query must stay an AbortError so TanStack Query treats it as cancelled.
     if (signal?.aborted || (error instanceof DOMException && error.name === 'AbortError')) throw error;

@@ -33,7 +33,10 @@ function subscribe(listener: () => void) {
 }
 
 const getSnapshot = () => notices;
+/** A page drawn on the server has no notices (the server's own list is never anyone's). */
+const none: readonly Notice[] = [];
+const getServerSnapshot = () => none;
 
 export function useNotices(): readonly Notice[] {
-  return useSyncExternalStore(subscribe, getSnapshot, getSnapshot);
+  return useSyncExternalStore(subscribe, getSnapshot, getServerSnapshot);
 }

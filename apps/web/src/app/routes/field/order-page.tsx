@@ -32,6 +32,12 @@ export const clientLoader =
     return null;
   };
 
+/**
+ * A first view drawn on the server has the walk's forms in it when the walk shows at once: they
+ * are loaded before hydrating, so the page does not fall back to "Loading the forms…" meanwhile.
+ */
+export const firstViewReady = loadWalkForms;
+
 /** An order on the technician's phone: the safety card, the walk through the bank, submit. */
 export default function FieldOrderPage() {
   const { id } = useParams();

@@ -27,10 +27,13 @@ export function fieldOutbox(): Outbox {
 
 const subscribe = (listener: () => void) => fieldOutbox().subscribe(listener);
 const getSnapshot = () => fieldOutbox().getSnapshot();
+/** What a page drawn on the server shows, and what its hydration starts from: nothing read from the phone yet. */
+const beforeReading: OutboxSnapshot = { items: [], sending: new Map(), online: true, loaded: false };
+const getServerSnapshot = () => beforeReading;
 
 /** What the outbox holds right now, redrawn on every change. */
 export function useOutboxSnapshot(): OutboxSnapshot {
-  return useSyncExternalStore(subscribe, getSnapshot, getSnapshot);
+  return useSyncExternalStore(subscribe, getSnapshot, getServerSnapshot);
 }
 
 /** Runs `onSent` for every item of `orderId` the server has stored (to refresh the order). */
