@@ -62,9 +62,14 @@ function internalsOf(prepared: PreparedQuery<unknown>): PreparedInternals {
   return p as PreparedInternals;
 }
 
-/** Drizzle's own choice for its mysql2 queries: dates as the text MariaDB sends, mapped by their columns. */
-const typeCast = (field: { type: string; string: () => string | null }, next: () => unknown) =>
-  field.type === 'TIMESTAMP' || field.type === 'DATETIME' || field.type === 'DATE' ? field.string() : next();
+/**
+ * Drizzle's own choice for its mysql2 queries: dates as the text MariaDB sends, mapped by their
+ * columns. Drizzle asks for it with a typeCast function; mysql2's dateStrings gives the same
+ * values without one, and without the wrapper object and closures mysql2 builds for every field
+ * of every row when a typeCast function is set (measurable CPU and garbage on the hot write).
+ */
+// dateStrings: true covers exactly DATE, DATETIME and TIMESTAMP, the three types Drizzle's typeCast reads as text.
+const datesAsText = { dateStrings: true } as const;
 
 /** Any statement, whatever its answer. */
 export interface AnyStatement {
@@ -91,7 +96,7 @@ export async function runTogether<const T extends readonly AnyStatement[]>(
   const texts = parts.map(({ internals }) => (internals.fields ? internals.query.sql : internals.rawQuery.sql));
   if (options.commit) texts.push('commit');
   if (texts.length < 2) throw new Error('runTogether needs two statements or more; run one with runStatement');
-  const [results] = (await connection.query({ sql: texts.join(';\n'), rowsAsArray: true, typeCast }, parts.flatMap((p) => p.params))) as unknown as [
+  const [results] = (await connection.query({ sql: texts.join(';\n'), rowsAsArray: true, ...datesAsText }, parts.flatMap((p) => p.params))) as unknown as [
     unknown[],
     unknown,
   ];

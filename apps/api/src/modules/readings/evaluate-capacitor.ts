@@ -41,8 +41,11 @@ export interface CapacitorContext {
   site: SiteRecord;
   /** The step's reactor in service, if the register has one. */
   reactor: ReactorRecord | null;
-  /** Units in service in the step (this one included). */
-  unitsInStep: number;
+  /**
+   * Units in service in the step (this one included). Only a detuned step's line currents read
+   * it, so it may be null for a step that is not detuned.
+   */
+  unitsInStep: number | null;
   orderKind: (typeof workOrderKinds)[number];
 }
 
@@ -282,6 +285,7 @@ function legsFromCurrents(
   let inductanceMH: number | undefined;
   let inductanceSource: 'register' | 'design-detuning-factor' | null = null;
   if (ctx.bank.detuned) {
+    if (ctx.unitsInStep === null) throw new Error('evaluateCapacitorReading: a detuned step needs its count of units in service');
     if (ctx.unitsInStep > 1) {
       throw new AppError('invalid', 'In a detuned step with several units the line currents cannot be split between them.', {
         method: `The reactor of step ${ctx.step.number} carries the current of all ${ctx.unitsInStep} units: measure this unit de-energised (open pairs or shorted) instead`,

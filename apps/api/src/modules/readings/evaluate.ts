@@ -82,7 +82,8 @@ async function evaluateUnit(
 ): Promise<Outcome> {
   if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Capacitor unit', input.targetId, order);
   if (place.unit.removedOn) throw removed('Capacitor unit', input.targetId, place.unit.removedOn);
-  // Only a detuned step's tuning needs its units and reactor; otherwise the count read with the place will do.
+  // Only a detuned step needs its units and reactor (its tuning, and the count of units its line currents are split
+  // between); a step that is not detuned reads neither.
   const [inService, stepUnits] = place.bank.detuned ? await stepOf(db, place.step.id, together) : [null, []];
   const reactor = inService?.reactor ?? null;
   const outcome = evaluateCapacitorReading(input, {
@@ -91,7 +92,7 @@ async function evaluateUnit(
     bank: place.bank,
     site: place.site,
     reactor,
-    unitsInStep: place.unitsInStep,
+    unitsInStep: place.bank.detuned ? stepUnits.length : null,
     orderKind: order.kind,
   });
   outcome.unitHistory = { latestAt: place.latestRecordedAt, driftPoints: place.driftPoints };

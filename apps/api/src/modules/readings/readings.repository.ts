@@ -114,7 +114,6 @@ const unitPlaceForReading = perDatabase((db) =>
     .select({
       unit: capacitorUnits,
       ...placeColumns,
-      unitsInStep: sql<number>`(select count(*) from ${capacitorUnits} as units_in_service where units_in_service.step_id = ${capacitorUnits.stepId} and units_in_service.removed_on is null)`.mapWith(Number),
       latestRecordedAt: unitLatestEvaluations.recordedAt,
       // The points the unit's drift is fitted over (unitDrift), as JSON [[recorded_at, deviation_pct], …]:
       // its readings in the five years up to the window's end, read with the place in one round trip.
@@ -155,9 +154,8 @@ export type UnitPlaceForReading = NonNullable<Awaited<ReturnType<typeof findUnit
 export const findUnitPlaceForReading = (db: Database, unitId: number, recordedAt: Date) => runStatement(unitPlaceForReadingStatement(db, unitId, recordedAt));
 
 /**
- * A unit with its step, bank and site, how many units are in service on its step, and when the
- * reading behind its latest evaluation was taken (null before its first): the same query as a
- * reading's, its drift window ending now.
+ * A unit with its step, bank and site, and when the reading behind its latest evaluation was
+ * taken (null before its first): the same query as a reading's, its drift window ending now.
  */
 export const findUnitPlace = (db: Database, unitId: number) => findUnitPlaceForReading(db, unitId, new Date());
 
