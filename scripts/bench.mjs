@@ -77,7 +77,9 @@ async function main() {
   writeFileSync(path.join(repoRoot, 'bench', 'results.json'), JSON.stringify({ machine, date: new Date().toISOString(), results }, null, 2));
   console.table(results.map((r) => ({ name: r.name, value: r.value, unit: r.unit, budget: r.budget, pass: r.pass ? 'yes' : 'NO' })));
   const failed = results.filter((r) => !r.pass);
-  log(`${results.length - failed.length} of ${results.length} budgets met; written to bench/results.json`);
+  // Figures reported beside the budgets (requests/s, p50, load time of the one-tenth fleet) have none.
+  const budgeted = results.filter((r) => r.budget !== '(figure)');
+  log(`${budgeted.length - failed.length} of ${budgeted.length} budgets met (${results.length - budgeted.length} figures beside them); written to bench/results.json`);
   if (failed.length) process.exitCode = 1;
 }
 
