@@ -1,4 +1,5 @@
 import { once } from 'node:events';
+import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createApp } from '../../apps/api/src/app';
 import { loadConfig, type Config } from '../../apps/api/src/config';
@@ -6,6 +7,8 @@ import { closeContext, createContext, type AppContext } from '../../apps/api/src
 
 export interface TestApp {
   ctx: AppContext;
+  /** The listening server, for a test that stops it as the process would (apps/api/src/shutdown.ts). */
+  server: Server;
   url: string;
   /** fetch against the app, with JSON helpers and the app's own Origin on writes. */
   request: (path: string, init?: RequestInit & { json?: unknown; cookie?: string }) => Promise<Response>;
@@ -38,6 +41,7 @@ export async function startTestApp(overrides: Partial<Record<keyof Config, strin
 
   return {
     ctx,
+    server,
     url,
     request,
     close: async () => {

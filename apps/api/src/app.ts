@@ -31,6 +31,8 @@ export function createApp(ctx: AppContext): express.Express {
   // API answers are never cached (no-store), so no ETag is hashed over each body; static files keep theirs.
   app.set('etag', false);
   app.set('trust proxy', 'loopback');
+  // First, so a stopping process waits for every answer, revision bumps included (shutdown.ts).
+  app.use(ctx.inFlight.middleware);
   app.use(
     pinoHttp({
       logger: ctx.log,

@@ -2,6 +2,7 @@ import type { Pool } from 'mysql2/promise';
 import type { Config } from './config';
 import { createDatabase, type Database } from './db/client';
 import { createTransactionPool, type TransactionPool } from './db/connection-transaction';
+import { createInFlight, type InFlight } from './http/in-flight';
 import { createLogger, type Logger } from './logger';
 import { createMailTransport, type MailTransport } from './mail/transport';
 import { createObjectStore, type ObjectStore } from './storage/object-store';
@@ -16,6 +17,8 @@ export interface AppContext {
   store: ObjectStore;
   mail: MailTransport;
   log: Logger;
+  /** The requests being answered, for a shutdown that lets them finish (shutdown.ts). */
+  inFlight: InFlight;
 }
 
 export function createContext(config: Config): AppContext {
@@ -28,6 +31,7 @@ export function createContext(config: Config): AppContext {
     store: createObjectStore(config),
     mail: createMailTransport(config),
     log: createLogger(config),
+    inFlight: createInFlight(),
   };
 }
 

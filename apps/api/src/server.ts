@@ -1,9 +1,10 @@
 import type { Server } from 'node:http';
 import { createApp } from './app';
 import { loadConfig } from './config';
-import { closeContext, createContext } from './context';
+import { createContext } from './context';
 import { applyMigrations } from './db/migrate';
 import { startJobs } from './jobs/scheduler';
+import { shutDown } from './shutdown';
 
 /** The process entry: migrate, listen, run jobs, and stop cleanly on SIGINT/SIGTERM. */
 async function main(): Promise<void> {
@@ -24,9 +25,7 @@ async function main(): Promise<void> {
     if (stopping) return;
     stopping = true;
     jobs.stop();
-    server.close();
-    server.closeAllConnections();
-    await closeContext(ctx);
+    await shutDown(server, ctx);
     process.exit(0);
   };
   process.on('SIGINT', () => void stop());
