@@ -6,6 +6,9 @@ import { createStaticHandler, createStaticRouter, StaticRouterProvider } from 'r
 import { createQueryClient } from './app/query-client';
 import { appRoutes } from './app/router';
 import type { FirstViewState } from './app/first-view-state';
+
+/** The id of the element the API writes the state into, read back by main.tsx: one name for both sides. */
+export { firstViewStateId } from './app/first-view-state';
 import { setApiTransport } from './lib/api-client';
 
 /**

@@ -4,8 +4,8 @@ import '@fontsource/work-sans/600.css';
 import './styles/index.css';
 import { readFirstViewState } from './app/first-view-state';
 
-// The entry is kept small: the app itself (src/app/start.tsx, which index.html preloads for every
-// page) is imported from here. When the server drew the page's first view, the app's code waits
+// The entry is kept small: the app itself (src/app/start.tsx, preloaded by index.html, or listed in
+// the first view's state when the server drew the page) is imported from here. When the server drew the page's first view, the app's code waits
 // until the browser has shown it: on a phone the framework's evaluation and the hydration would
 // otherwise run before the first paint and hold it back.
 

@@ -110,8 +110,8 @@ function pageOf({ patterns }: Preloads, pathname: string): PageMatch | undefined
   return undefined;
 }
 
-/** A page's first view drawn on the server: its markup for #root and the data it was drawn from. */
-export type FirstView = { html: string; state: Record<string, unknown> };
+/** A page's first view drawn on the server: its markup for #root, the data it was drawn from, and the id main.tsx reads that data by. */
+export type FirstView = { html: string; state: Record<string, unknown>; stateId: string };
 
 /** The state as JSON that cannot end its script element early ("</script>" in a name) or be read as markup. */
 const scriptJson = (value: unknown) => JSON.stringify(value).replace(/</g, '\\u003c').replace(/>/g, '\\u003e').replace(/&/g, '\\u0026');
@@ -121,7 +121,7 @@ const scriptJson = (value: unknown) => JSON.stringify(value).replace(/</g, '\\u0
  * drew its first view, that markup in #root and its data in a JSON script element (not run, so
  * the content security policy needs no exception) that the app hydrates from
  * (apps/web/src/app/first-view.ts). A page drawn on the server has its session and data with
- * it, so only its chunks are preloaded.
+ * it and preloads nothing from its head: its script files are listed in the state instead.
  */
 export function indexFor(indexHtml: string, preloads: Preloads, pathname: string, firstView?: FirstView): string {
   const page = pageOf(preloads, pathname);
@@ -143,17 +143,16 @@ export function indexFor(indexHtml: string, preloads: Preloads, pathname: string
     const state = { ...firstView.state, modules };
     html = html.replace(
       '<div id="root"></div>',
-      () => `<div id="root">${firstView.html}</div>\n    <script type="application/json" id="${firstViewStateId}">${scriptJson(state)}</script>`,
+      () => `<div id="root">${firstView.html}</div>\n    <script type="application/json" id="${firstView.stateId}">${scriptJson(state)}</script>`,
     );
   }
   return html;
 }
 
-/** The id main.tsx reads the first view's state from (apps/web/src/app/first-view.ts). */
-export const firstViewStateId = 'varden-first-view';
-
 type RenderResult = { kind: 'rendered'; html: string; state: Record<string, unknown> } | { kind: 'not-rendered'; reason: string };
 type Renderer = {
+  /** The id of the state's element, as the web app reads it (apps/web/src/app/first-view-state.ts). */
+  firstViewStateId: string;
   render: (request: { url: string; apiOrigin: string; cookie: string | undefined; signal: AbortSignal }) => Promise<RenderResult>;
 };
 
@@ -194,13 +193,14 @@ export function serveWebApp(app: express.Express, distDir: string | undefined, l
   };
   const firstViewOf = async (req: express.Request, renderer: Promise<Renderer>): Promise<FirstView | undefined> => {
     try {
-      const result = await (await renderer).render({
+      const { render, firstViewStateId } = await renderer;
+      const result = await render({
         url: new URL(req.originalUrl, 'http://varden.invalid').href,
         apiOrigin: ownOrigin(req),
         cookie: req.headers.cookie,
         signal: AbortSignal.timeout(firstViewTimeoutMs),
       });
-      return result.kind === 'rendered' ? { html: result.html, state: result.state } : undefined;
+      return result.kind === 'rendered' ? { html: result.html, state: result.state, stateId: firstViewStateId } : undefined;
     } catch (error) {
       log?.warn({ err: error, path: req.path }, 'The first view could not be drawn on the server; the browser draws it');
       return undefined;
