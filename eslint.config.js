@@ -29,7 +29,24 @@ export default tseslint.config(
         'error',
         { patterns: [{ group: ['**/apps/api/**', '@varden/api', '@varden/api/*'], message: 'The web app never imports the API.' }] },
       ],
+      // On the server a default locale or zone is the server's, not the reader's (src/lib/reader-format.ts).
+      'no-restricted-syntax': [
+        'error',
+        {
+          selector: "NewExpression[callee.object.name='Intl'][arguments.length=0], NewExpression[callee.object.name='Intl'] > Identifier.arguments[name='undefined']",
+          message: "Use readerNumberFormat or readerDateFormat (src/lib/reader-format.ts): they format in the reader's locale and zone, on the server too.",
+        },
+        {
+          selector: "CallExpression[callee.property.name=/^toLocale(Date|Time)?String$/][arguments.length=0], CallExpression[callee.property.name=/^toLocale(Date|Time)?String$/] > Identifier.arguments[name='undefined']",
+          message: "Pass readerLocale() (src/lib/reader-format.ts): the default is the server's locale when the server draws the page.",
+        },
+      ],
     },
+  },
+  {
+    // The one place that asks Intl for its defaults (the browser's own locale and zone), and tests that compare with them.
+    files: ['apps/web/src/lib/reader-format.ts', 'apps/web/src/**/*.test.{ts,tsx}'],
+    rules: { 'no-restricted-syntax': 'off' },
   },
   {
     // The engineering package is pure: plain numbers in, plain objects out, no I/O.

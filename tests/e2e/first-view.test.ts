@@ -1,4 +1,4 @@
-import type { Browser } from 'playwright-core';
+import type { Browser, BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, expect, test } from 'vitest';
 import { adoptSession, launchBrowser, newContext, phoneViewport } from '../support/browser';
 import { createBankWithUnits, createUser, createWorkOrder, signIn } from '../support/factories';
@@ -33,8 +33,8 @@ afterAll(async () => {
  * Opens the page with the app's entry script held back, marks the server's heading, lets the
  * script go and waits for the app: the same heading node must still be in the page.
  */
-async function hydrated(path: string, cookie: string | undefined) {
-  const context = await newContext(browser, phoneViewport);
+async function hydrated(path: string, cookie: string | undefined, given?: BrowserContext) {
+  const context = given ?? (await newContext(browser, phoneViewport));
   if (cookie) await adoptSession(context, app.url, cookie);
   const page = await context.newPage();
   const problems: string[] = [];
@@ -90,5 +90,28 @@ test('the fleet dashboard: drawn with its figures and kept by hydration', async 
   expect(drawnBeforeScript).toBe('Fleet health');
   expect(kept).toBe(true);
   expect(problems).toEqual([]);
+  await context.close();
+});
+
+test("a reader in another locale and zone: drawn again at first, then drawn as the browser would and kept", async () => {
+  // A German phone in New York; the server runs in its own zone. Playwright sends Accept-Language de-DE.
+  const context = await browser.newContext({ viewport: phoneViewport, isMobile: true, hasTouch: true, locale: 'de-DE', timezoneId: 'America/New_York' });
+  // First visit: no locale kept yet, so the server wrote dates in its own zone; the browser draws the page again, with no error.
+  const first = await hydrated('/sign-in', undefined, context);
+  expect(first.drawnBeforeScript).toBe('Sign in');
+  expect(first.problems).toEqual([]);
+  const kept = (await context.cookies(app.url)).find((c) => c.name === 'varden_reader');
+  expect(decodeURIComponent(kept?.value ?? '')).toBe('de-DE America/New_York');
+  await first.page.close();
+
+  // From then on the server writes as this browser does, and hydration keeps its markup.
+  const { page, problems, drawnBeforeScript, kept: nodeKept } = await hydrated(`/field/orders/${orderId}`, technicianCookie, context);
+  expect(drawnBeforeScript).toMatch(/Order/);
+  expect(nodeKept).toBe(true);
+  expect(problems).toEqual([]);
+  const dueOn = await page.evaluate(async (id) => ((await (await fetch(`/api/work-orders/${id}`)).json()) as { dueOn: string }).dueOn, orderId);
+  const [year, month, day] = dueOn.slice(0, 10).split('-');
+  // German style (ICU), and the due date is its own day, not the day before as midnight UTC would be in New York.
+  await expect.poll(() => page.locator('#root').textContent()).toContain(`Due ${day}.${month}.${year}`);
   await context.close();
 });

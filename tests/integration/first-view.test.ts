@@ -76,6 +76,25 @@ describe('a page drawn on the server', () => {
     expect(JSON.stringify(queries.find((query) => query.queryKey[0] === 'session')?.state.data)).toContain(technician.name);
   });
 
+  test("numbers and dates are the visitor's: the locale and zone their browser kept, else their language", async () => {
+    // The app keeps the browser's own in this cookie (apps/web/src/lib/reader-format.ts).
+    const reader = `varden_reader=${encodeURIComponent('de-DE America/New_York')}`;
+    const { res, root, state } = await pageOf(`/field/orders/${orderId}`, `${technician.cookie}; ${reader}`);
+    expect(res.headers.get('vary')).toMatch(/^Cookie, Accept-Language\b/);
+    expect(state!.reader).toEqual({ locale: 'de-DE', timeZone: 'America/New_York' });
+    const queries = (state!.queries as { queries: Array<{ state: { data: unknown } }> }).queries;
+    const dueOn = (queries.map((query) => query.state.data).find((data) => (data as { title?: string } | null)?.title === orderTitle) as { dueOn: string }).dueOn;
+    // German dates read DD.MM.YYYY (ICU's medium style); a due date stays its own day in New York, west of UTC.
+    const [year, month, day] = dueOn.slice(0, 10).split('-');
+    // (React writes a comment between the two text nodes.)
+    expect(root).toMatch(new RegExp(`Due (<!-- -->)?${day}\\.${month}\\.${year}<`));
+
+    // No cookie yet (the first visit): the first language the browser accepts, in the server's zone.
+    const first = await app.request('/sign-in', { headers: { 'accept-language': 'fr-CA,fr;q=0.8' } });
+    const firstState = /<script type="application\/json" id="varden-first-view">([\s\S]*?)<\/script>/.exec(await first.text())?.[1];
+    expect((JSON.parse(firstState!) as { reader: unknown }).reader).toEqual({ locale: 'fr-CA', timeZone: new Intl.DateTimeFormat().resolvedOptions().timeZone });
+  });
+
   test('renders at once for different visitors each carry only their own session', async () => {
     const sessionIn = (state: Record<string, unknown> | undefined) =>
       JSON.stringify((state?.queries as { queries: Array<{ queryKey: unknown[]; state: { data: unknown } }> } | undefined)?.queries.find((query) => query.queryKey[0] === 'session')?.state.data);

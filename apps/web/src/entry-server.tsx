@@ -10,6 +10,7 @@ import type { FirstViewState } from './app/first-view-state';
 /** The id of the element the API writes the state into, read back by main.tsx: one name for both sides. */
 export { firstViewStateId } from './app/first-view-state';
 import { setApiTransport } from './lib/api-client';
+import { readerCookieName, setReaderFormatSource, type ReaderFormat } from './lib/reader-format';
 
 /**
  * The first view of a page, rendered on the server (built with `vite build --ssr` into
@@ -26,6 +27,8 @@ export type RenderRequest = {
   apiOrigin: string;
   /** The visitor's Cookie header: the loaders' requests are theirs, with their permissions. */
   cookie: string | undefined;
+  /** The visitor's Accept-Language header, for a visitor whose browser has not yet kept its locale. */
+  acceptLanguage: string | undefined;
   signal: AbortSignal;
 };
 
@@ -34,8 +37,47 @@ export type RenderResult =
   | { kind: 'rendered'; html: string; state: FirstViewState }
   | { kind: 'not-rendered'; reason: string };
 
-type Visit = { apiOrigin: string; cookie: string | undefined; signal: AbortSignal };
+type Visit = { apiOrigin: string; cookie: string | undefined; signal: AbortSignal; reader: ReaderFormat };
 const visit = new AsyncLocalStorage<Visit>();
+
+// Numbers and dates as the visitor's browser writes them (lib/reader-format.ts).
+setReaderFormatSource(() => visit.getStore()?.reader);
+
+/** A locale and zone as Intl resolves them, or undefined when either is not one Intl knows. */
+function resolved(locale: string | undefined, timeZone: string | undefined): ReaderFormat | undefined {
+  try {
+    const options = new Intl.DateTimeFormat(locale, { timeZone }).resolvedOptions();
+    return { locale: options.locale, timeZone: options.timeZone };
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * The locale and time zone the visitor's browser formats in: the ones it keeps in its
+ * `varden_reader` cookie (src/app/start.tsx writes it at every start); before it has one, the first
+ * language it accepts and this server's zone. The state tells the browser which were used, so
+ * it hydrates only markup that reads as it would draw it (src/app/start.tsx).
+ */
+export function readerFormatFor(cookie: string | undefined, acceptLanguage: string | undefined): ReaderFormat {
+  const kept = cookie
+    ?.split(';')
+    .map((part) => part.trim())
+    .find((part) => part.startsWith(`${readerCookieName}=`));
+  if (kept) {
+    let text = '';
+    try {
+      text = decodeURIComponent(kept.slice(readerCookieName.length + 1));
+    } catch {
+      // Not a value the app wrote: as if there were none.
+    }
+    const [locale, timeZone, ...rest] = text.split(' ');
+    const fromCookie = rest.length === 0 && locale && timeZone ? resolved(locale, timeZone) : undefined;
+    if (fromCookie) return fromCookie;
+  }
+  const language = acceptLanguage?.split(',')[0]?.split(';')[0]?.trim();
+  return (language && language !== '*' ? resolved(language, undefined) : undefined) ?? resolved(undefined, undefined)!;
+}
 
 // Each render's requests carry its own visitor's cookie (one render's store cannot reach another's).
 setApiTransport((path, init) => {
@@ -46,8 +88,9 @@ setApiTransport((path, init) => {
   return fetch(new URL(path, current.apiOrigin), { ...init, headers, signal: init.signal ?? current.signal });
 });
 
-export async function render({ url, apiOrigin, cookie, signal }: RenderRequest): Promise<RenderResult> {
-  return visit.run({ apiOrigin, cookie, signal }, async () => {
+export async function render({ url, apiOrigin, cookie, acceptLanguage, signal }: RenderRequest): Promise<RenderResult> {
+  const reader = readerFormatFor(cookie, acceptLanguage);
+  return visit.run({ apiOrigin, cookie, signal, reader }, async () => {
     const queryClient = createQueryClient();
     // One try: a page the server cannot draw at once is drawn by the browser instead.
     queryClient.setDefaultOptions({ ...queryClient.getDefaultOptions(), queries: { ...queryClient.getDefaultOptions().queries, retry: false } });
@@ -69,6 +112,7 @@ export async function render({ url, apiOrigin, cookie, signal }: RenderRequest):
       const state: FirstViewState = {
         router: { loaderData: context.loaderData },
         queries: dehydrate(queryClient),
+        reader,
       };
       return { kind: 'rendered', html, state };
     } finally {

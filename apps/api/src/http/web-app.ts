@@ -153,7 +153,7 @@ type RenderResult = { kind: 'rendered'; html: string; state: Record<string, unkn
 type Renderer = {
   /** The id of the state's element, as the web app reads it (apps/web/src/app/first-view-state.ts). */
   firstViewStateId: string;
-  render: (request: { url: string; apiOrigin: string; cookie: string | undefined; signal: AbortSignal }) => Promise<RenderResult>;
+  render: (request: { url: string; apiOrigin: string; cookie: string | undefined; acceptLanguage: string | undefined; signal: AbortSignal }) => Promise<RenderResult>;
 };
 
 /** How long a first view may take on the server before the browser is left to draw the page. */
@@ -198,6 +198,8 @@ export function serveWebApp(app: express.Express, distDir: string | undefined, l
         url: new URL(req.originalUrl, 'http://varden.invalid').href,
         apiOrigin: ownOrigin(req),
         cookie: req.headers.cookie,
+        // Numbers and dates in the visitor's locale (apps/web/src/lib/reader-format.ts).
+        acceptLanguage: req.headers['accept-language'],
         signal: AbortSignal.timeout(firstViewTimeoutMs),
       });
       return result.kind === 'rendered' ? { html: result.html, state: result.state, stateId: firstViewStateId } : undefined;
@@ -217,7 +219,8 @@ export function serveWebApp(app: express.Express, distDir: string | undefined, l
     const firstView = renderer && page?.pattern.firstView ? await firstViewOf(req, renderer) : undefined;
     // A page drawn on the server holds the visitor's own data: never kept by a shared cache.
     res.setHeader('Cache-Control', firstView ? 'private, no-cache' : 'no-cache');
-    res.setHeader('Vary', 'Cookie');
+    // Its data is the visitor's (the session cookie), and so are its numbers and dates (their locale cookie, or Accept-Language).
+    res.setHeader('Vary', 'Cookie, Accept-Language');
     res.type('html').send(indexFor(indexHtml, preloads, req.path, firstView));
   });
 }

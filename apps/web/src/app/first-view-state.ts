@@ -14,6 +14,8 @@ export type FirstViewState = {
   router: Pick<HydrationState, 'loaderData'>;
   /** TanStack Query's cache after the loaders ran: the session and the page's data. */
   queries: DehydratedState;
+  /** The locale and time zone the server wrote numbers and dates in (lib/reader-format.ts). */
+  reader?: { locale: string; timeZone: string };
   /** The app's and the page's script files, preloaded once the first view is on screen (added by the API). */
   modules?: string[];
 };

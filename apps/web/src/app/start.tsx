@@ -6,12 +6,15 @@ import type { FirstViewState } from './first-view-state';
 import { AppProvider } from './provider';
 import { createQueryClient } from './query-client';
 import { appRoutes } from './router';
+import { ownReaderFormat, rememberReaderFormat } from '../lib/reader-format';
 
 /**
  * Starts the app in #root: hydrates the first view the server drew (keeping its markup), or
  * draws the page from nothing when there is none. main.tsx loads this module.
  */
 export async function startApp(root: HTMLElement, firstView: FirstViewState | undefined): Promise<void> {
+  // The server draws the next first view in this browser's locale and zone (lib/reader-format.ts).
+  rememberReaderFormat(document, window.location.protocol === 'https:');
   const queryClient = createQueryClient();
   const routes = appRoutes(queryClient);
   if (firstView) await prepareFirstView(queryClient, routes, firstView, window.location);
@@ -25,6 +28,14 @@ export async function startApp(root: HTMLElement, firstView: FirstViewState | un
   );
   // As a transition, the hydration yields to the browser every few milliseconds instead of
   // holding the main thread for the whole page (a long fleet table took 200 ms at once).
-  if (firstView) startTransition(() => void hydrateRoot(root, app));
+  if (firstView && readsAsThisBrowser(firstView)) startTransition(() => void hydrateRoot(root, app));
+  // Markup drawn in another locale or zone (a browser that had not yet told the server its own,
+  // or has moved zone since) is drawn again, from the same data, rather than hydrated wrongly.
   else createRoot(root).render(app);
+}
+
+/** Whether the server wrote numbers and dates as this browser does. */
+function readsAsThisBrowser(firstView: FirstViewState): boolean {
+  const own = ownReaderFormat();
+  return firstView.reader?.locale === own.locale && firstView.reader.timeZone === own.timeZone;
 }

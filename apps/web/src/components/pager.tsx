@@ -1,6 +1,7 @@
 import { useId } from 'react';
 import { pageCount } from '../lib/server-table';
 import { Button } from './button';
+import { readerNumberFormat } from '../lib/reader-format';
 
 type PagerProps = {
   page: number;
@@ -13,7 +14,7 @@ type PagerProps = {
   pageSizes?: readonly number[];
 };
 
-const numberFormat = new Intl.NumberFormat();
+const numberFormat = readerNumberFormat();
 
 /** Previous/next and rows per page for a server-paged table; the counts in tabular figures. */
 export function Pager({ page, pageSize, total, noun, onPage, onPageSize, pageSizes = [25, 50, 100] }: PagerProps) {

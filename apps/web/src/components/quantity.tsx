@@ -1,4 +1,5 @@
 import { classNames } from '../lib/class-names';
+import { readerLocale } from '../lib/reader-format';
 
 type QuantityProps = {
   value: number | null | undefined;
@@ -12,10 +13,11 @@ type QuantityProps = {
 const formatters = new Map<string, Intl.NumberFormat>();
 
 function formatter(minimumFractionDigits: number, maximumFractionDigits: number): Intl.NumberFormat {
-  const key = `${minimumFractionDigits}:${maximumFractionDigits}`;
+  const locale = readerLocale();
+  const key = `${locale ?? ''}:${minimumFractionDigits}:${maximumFractionDigits}`;
   let format = formatters.get(key);
   if (!format) {
-    format = new Intl.NumberFormat(undefined, { minimumFractionDigits, maximumFractionDigits });
+    format = new Intl.NumberFormat(locale, { minimumFractionDigits, maximumFractionDigits });
     formatters.set(key, format);
   }
   return format;

@@ -25,6 +25,7 @@ import { EmptyState } from '../../../features/register/components/empty-state';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
 import { allowed, ensureStepContext, idParam, orNotFound, stepTrail, useStepContext } from './route-helpers';
+import { readerLocale } from '../../../lib/reader-format';
 
 const names: Record<ComponentKind, string> = { contactors: 'Contactor', reactors: 'Detuning reactor', 'fuse-sets': 'Fuse set' };
 
@@ -33,7 +34,7 @@ function factsOf(kind: ComponentKind, record: ComponentRecord[ComponentKind]): F
     const c = record as Contactor;
     return [
       { label: 'Rated electrical endurance', value: <Quantity value={c.ratedOperations} unit="operations" /> },
-      { label: 'Counter at installation', value: <span className="numeric">{c.counterAtInstall.toLocaleString()}</span> },
+      { label: 'Counter at installation', value: <span className="numeric">{c.counterAtInstall.toLocaleString(readerLocale())}</span> },
       { label: 'Maker and model', value: [c.maker, c.model].filter(Boolean).join(' · ') || '—' },
     ];
   }

@@ -2,8 +2,9 @@ import { starPhasesFromLegs, type Triple } from '@varden/engineering';
 import { ConditionGlyph } from '../../../components/condition-glyph';
 import { Quantity } from '../../../components/quantity';
 import type { LiveCapacitorResult, ServerCapacitorResult } from '../readings/live-capacitor-result';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
-const signed = new Intl.NumberFormat(undefined, { signDisplay: 'exceptZero', minimumFractionDigits: 1, maximumFractionDigits: 1 });
+const signed = readerNumberFormat({ signDisplay: 'exceptZero', minimumFractionDigits: 1, maximumFractionDigits: 1 });
 
 function Deviation({ pct }: { pct: number }) {
   return (

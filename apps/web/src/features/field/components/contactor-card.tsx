@@ -9,6 +9,7 @@ import { ComponentCard } from './component-card';
 import { ChoiceGroup, DecimalField, NotesField } from './field-controls';
 import { OutboxItemStatus } from './outbox-item-status';
 import { StoredReasons } from './stored-reasons';
+import { readerLocale } from '../../../lib/reader-format';
 
 type Contactor = NonNullable<WalkthroughBank['steps'][number]['contactor']>;
 type Condition = 'good' | 'worn' | 'burnt';
@@ -75,8 +76,8 @@ export function ContactorCard({ orderId, stepNumber, contactor, readings, editab
       testId={`contactor-${contactor.id}`}
       facts={
         <>
-          Rated <span className="numeric">{contactor.ratedOperations.toLocaleString()}</span> operations · counter at install{' '}
-          <span className="numeric">{contactor.counterAtInstall.toLocaleString()}</span>
+          Rated <span className="numeric">{contactor.ratedOperations.toLocaleString(readerLocale())}</span> operations · counter at install{' '}
+          <span className="numeric">{contactor.counterAtInstall.toLocaleString(readerLocale())}</span>
           {contactor.model && <> · {contactor.model}</>}
         </>
       }
@@ -94,7 +95,7 @@ export function ContactorCard({ orderId, stepNumber, contactor, readings, editab
           {live.kind === 'result' && (
             <p>
               <Quantity value={live.usedPct} unit="%" maximumFractionDigits={1} minimumFractionDigits={1} /> of its rated operations used (
-              <span className="numeric">{live.operations.toLocaleString()}</span> since installation).
+              <span className="numeric">{live.operations.toLocaleString(readerLocale())}</span> since installation).
               {live.flag && <span className="block font-semibold text-replace">Past {contactorFlagAbovePct} %: plan its replacement.</span>}
             </p>
           )}

@@ -8,6 +8,7 @@ import { ComponentCard } from './component-card';
 import { ChoiceGroup, DecimalField, NotesField } from './field-controls';
 import { OutboxItemStatus } from './outbox-item-status';
 import { StoredReasons } from './stored-reasons';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
 type Reactor = NonNullable<WalkthroughBank['steps'][number]['reactor']>;
 type ReactorForm = { thermalSwitch: 'closed' | 'open' | undefined; inductance: [string, string, string]; temperature: string; notes: string };
@@ -18,7 +19,7 @@ const switchOptions = [
 ] as const;
 
 const text = (v: unknown) => (typeof v === 'number' ? String(v) : '');
-const signed = new Intl.NumberFormat(undefined, { signDisplay: 'exceptZero', minimumFractionDigits: 1, maximumFractionDigits: 1 });
+const signed = readerNumberFormat({ signDisplay: 'exceptZero', minimumFractionDigits: 1, maximumFractionDigits: 1 });
 
 function formFrom(input: Record<string, unknown> | undefined): ReactorForm {
   const inductance = Array.isArray(input?.inductanceMH) ? input.inductanceMH : [];

@@ -1,9 +1,11 @@
+import { readerLocale } from '../../../lib/reader-format';
+
 /** A no-break space: a number and its unit never part at a line end. */
 export const nbsp = '\u00A0';
 
 const formatters = new Map<string, Intl.NumberFormat>();
 
-function formatter(locale: string | undefined, minimumFractionDigits: number, maximumFractionDigits: number): Intl.NumberFormat {
+function formatter(locale: string | undefined = readerLocale(), minimumFractionDigits: number, maximumFractionDigits: number): Intl.NumberFormat {
   const key = `${locale ?? ''}:${minimumFractionDigits}:${maximumFractionDigits}`;
   let format = formatters.get(key);
   if (!format) {

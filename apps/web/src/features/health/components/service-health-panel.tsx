@@ -6,6 +6,7 @@ import { ServiceStatusBadge } from '../../../components/service-status-badge';
 import { isApiError } from '../../../lib/api-client';
 import { serviceNames, type HealthReport, type ServiceName } from '../api/get-health';
 import { healthQueries } from '../api/health-queries';
+import { readerDateFormat } from '../../../lib/reader-format';
 
 const serviceLabels: Record<ServiceName, string> = {
   database: 'Database',
@@ -13,7 +14,7 @@ const serviceLabels: Record<ServiceName, string> = {
   mail: 'Mail',
 };
 
-const timeFormat = new Intl.DateTimeFormat(undefined, { hour: '2-digit', minute: '2-digit', second: '2-digit' });
+const timeFormat = readerDateFormat({ hour: '2-digit', minute: '2-digit', second: '2-digit' });
 
 function checkedAt(iso: string): string {
   const date = new Date(iso);

@@ -9,6 +9,7 @@ import { CheckboxField, DateField, FieldGroup, NumberField, TextField } from './
 import { FormActions } from './form-actions';
 import { asNullableNumber, asNullableText } from './form-values';
 import { applyServerErrors, type FormFailure } from './server-errors';
+import { readerLocale } from '../../../lib/reader-format';
 
 type BankOutput = z.output<typeof bankCreate>;
 const fieldNames = Object.keys(bankCreate.shape);
@@ -98,7 +99,7 @@ export function BankForm({ siteId, bank, onSaved, cancel }: BankFormProps) {
             live={
               typeof detuningFactor === 'number' && detuningFactor > 0 && detuningFactor < 0.5 ? (
                 <span className="text-ink-muted">
-                  = <span className="numeric">{(detuningFactor * 100).toLocaleString(undefined, { maximumFractionDigits: 2 })}</span> %
+                  = <span className="numeric">{(detuningFactor * 100).toLocaleString(readerLocale(), { maximumFractionDigits: 2 })}</span> %
                 </span>
               ) : null
             }

@@ -9,6 +9,7 @@ import {
 } from '../nameplate/capacitance-preview';
 import { DateField, FieldGroup, NumberField, SelectField, TextField } from './form-field';
 import { asNullableNumber, asNullableText, asNumber } from './form-values';
+import { readerLocale } from '../../../lib/reader-format';
 
 /** The fields of a capacitor unit that this component edits (the shared unitCreate schema's, less stepId). */
 type UnitField =
@@ -127,7 +128,7 @@ export function UnitFields({ prefix = '', withPosition = true }: UnitFieldsProps
               <p data-testid="capacitance-difference" className={comparison.beyondWarning ? 'font-medium text-watch' : 'text-ink-muted'}>
                 <span className="numeric">
                   {comparison.differencePct >= 0 ? '+' : '−'}
-                  {Math.abs(comparison.differencePct).toLocaleString(undefined, { maximumFractionDigits: 1, minimumFractionDigits: 1 })}
+                  {Math.abs(comparison.differencePct).toLocaleString(readerLocale(), { maximumFractionDigits: 1, minimumFractionDigits: 1 })}
                 </span>{' '}
                 % from the nameplate's value.
                 {comparison.beyondWarning &&

@@ -1,6 +1,7 @@
 import { defaultPolicy } from '@varden/engineering';
 import { CartesianGrid, Line, LineChart, ReferenceLine, XAxis, YAxis } from 'recharts';
 import { useId, useState } from 'react';
+import { readerDateFormat } from '../../../lib/reader-format';
 
 /** One reading's deviation from nameplate, for the trend. */
 export type DeviationPoint = { date: string; deviationPct: number };
@@ -12,7 +13,7 @@ export const trendThresholds = {
 } as const;
 
 const dayMs = 86_400_000;
-const dateFormat = new Intl.DateTimeFormat(undefined, { year: 'numeric', month: 'short' });
+const dateFormat = readerDateFormat({ year: 'numeric', month: 'short' });
 /** −5 with a true minus sign, as the axis writes it. */
 const signed = (pct: number) => `${pct < 0 ? '−' : ''}${Math.abs(pct)}`;
 const dateOf = (iso: string) => Date.parse(`${iso.slice(0, 10)}T00:00:00Z`);

@@ -6,9 +6,10 @@ import { paths } from '../../../config/paths';
 import { methodLabels } from '../../work-orders/lib/work-order-words';
 import { EmptyState } from '../components/empty-state';
 import { formatDate } from '../components/formats';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
 const nbsp = '\u00A0';
-const uf = new Intl.NumberFormat(undefined, { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+const uf = readerNumberFormat({ minimumFractionDigits: 1, maximumFractionDigits: 1 });
 const signedPct = (v: number) => `${v > 0 ? '+' : v < 0 ? '−' : ''}${uf.format(Math.abs(v))}${nbsp}%`;
 
 /**

@@ -3,6 +3,7 @@ import type { Bank, Site, Step, Unit } from '@varden/schemas';
 import { registerKey } from '../api/register-keys';
 import { paths } from '../../../config/paths';
 import { qrDataUrl } from './qr-image';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
 /** One printed label: what it names, in words, and the QR code that opens its page. */
 export type LabelSpec = {
@@ -14,7 +15,7 @@ export type LabelSpec = {
   path: string;
 };
 
-const n = new Intl.NumberFormat(undefined, { maximumFractionDigits: 2 });
+const n = readerNumberFormat({ maximumFractionDigits: 2 });
 
 /** The bank's label first, then one per capacitor unit in service by step and position. */
 export function labelsOf(site: Site, bank: Bank, steps: readonly Step[], units: readonly Unit[]): LabelSpec[] {

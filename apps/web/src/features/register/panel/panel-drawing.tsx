@@ -5,6 +5,7 @@ import { paths } from '../../../config/paths';
 import { NoReadingShape, noReadingLabel } from '../components/no-reading-glyph';
 import { layoutPanel, panelGeometry, type PanelSymbol, type StepComponents, type SymbolKind } from './panel-layout';
 import { ComponentSymbol } from './panel-symbols';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
 const recordHref: Record<SymbolKind, (id: number) => string> = {
   'fuse-set': paths.register.fuseSet.getHref,
@@ -13,7 +14,7 @@ const recordHref: Record<SymbolKind, (id: number) => string> = {
   unit: paths.register.unit.getHref,
 };
 
-const kvar = new Intl.NumberFormat(undefined, { maximumFractionDigits: 2 });
+const kvar = readerNumberFormat({ maximumFractionDigits: 2 });
 
 type PanelDrawingProps = {
   bank: Bank;

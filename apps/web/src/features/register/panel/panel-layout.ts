@@ -1,5 +1,6 @@
 import type { Step, Unit } from '@varden/schemas';
 import type { Contactor, FuseSet, Reactor } from '../api/component-queries';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
 /**
  * The panel drawing's geometry, apart from its pictures: a bank drawn as it is built, its steps
@@ -47,10 +48,10 @@ export type StepComponents = {
   fuseSets: readonly FuseSet[];
 };
 
-const numberFormat = new Intl.NumberFormat(undefined, { maximumFractionDigits: 2 });
+const numberFormat = readerNumberFormat({ maximumFractionDigits: 2 });
 const n = (value: number) => numberFormat.format(value);
 // 100,000 → "100K": the column is narrow; the record page gives the full figure.
-const compactFormat = new Intl.NumberFormat(undefined, { notation: 'compact', maximumFractionDigits: 1 });
+const compactFormat = readerNumberFormat({ notation: 'compact', maximumFractionDigits: 1 });
 
 /** The symbols of one step, top to bottom, before they are placed. */
 export function stepSymbols(components: StepComponents, detuned: boolean): Omit<PanelSymbol, 'y'>[] {

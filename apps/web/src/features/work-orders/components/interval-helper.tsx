@@ -4,9 +4,10 @@ import { Button } from '../../../components/button';
 import { TextField } from '../../../components/form/text-field';
 import { conditionLabels, intervalSource, reliabilityLabels, suggestInterval, type EquipmentCondition, type ReliabilityNeed } from '../lib/inspection-interval';
 import { SelectField } from './form-controls';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
-const factorFormat = new Intl.NumberFormat(undefined, { minimumFractionDigits: 2, maximumFractionDigits: 2 });
-const monthsFormat = new Intl.NumberFormat(undefined, { maximumFractionDigits: 2 });
+const factorFormat = readerNumberFormat({ minimumFractionDigits: 2, maximumFractionDigits: 2 });
+const monthsFormat = readerNumberFormat({ maximumFractionDigits: 2 });
 
 /**
  * The interval helper: base interval × reliability need × equipment condition (NETA MTS

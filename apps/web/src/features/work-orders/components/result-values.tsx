@@ -1,8 +1,9 @@
 import { ConditionGlyph } from '../../../components/condition-glyph';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
-const signed = new Intl.NumberFormat(undefined, { signDisplay: 'exceptZero', minimumFractionDigits: 1, maximumFractionDigits: 1 });
-const plain = new Intl.NumberFormat(undefined, { minimumFractionDigits: 1, maximumFractionDigits: 1 });
-const legs = new Intl.NumberFormat(undefined, { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+const signed = readerNumberFormat({ signDisplay: 'exceptZero', minimumFractionDigits: 1, maximumFractionDigits: 1 });
+const plain = readerNumberFormat({ minimumFractionDigits: 1, maximumFractionDigits: 1 });
+const legs = readerNumberFormat({ minimumFractionDigits: 1, maximumFractionDigits: 1 });
 
 const noValue = (
   <span className="numeric text-ink-muted">

@@ -4,10 +4,11 @@ import { classNames } from '../../../lib/class-names';
 import { openStatesFilter } from '../lib/work-order-search';
 import { stateLabels } from '../lib/work-order-words';
 import { paths } from '../../../config/paths';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
 type Row = Workload['technicians'][number];
 
-const count = new Intl.NumberFormat();
+const count = readerNumberFormat();
 
 /** The open orders of one technician (or of nobody), as the work-order table lists them. */
 function ordersHref(row: Row, state: string = openStatesFilter): string {

@@ -1,5 +1,7 @@
-const dateFormat = new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-const longFormat = new Intl.DateTimeFormat(undefined, { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+import { readerDateFormat } from '../../../lib/reader-format';
+
+const dateFormat = readerDateFormat({ day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
+const longFormat = readerDateFormat({ weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 
 function toDate(date: string): Date | undefined {
   const time = Date.parse(`${date.slice(0, 10)}T00:00:00Z`);

@@ -1,3 +1,5 @@
+import { readerLocale } from '../../../lib/reader-format';
+
 /**
  * The due calendar's month: weeks of seven days from Monday, the days of the neighbouring
  * months filling the first and last week. Dates are calendar dates (YYYY-MM-DD) as the API
@@ -94,7 +96,7 @@ export function buildMonthGrid<T>(month: string, items: readonly T[], dateOf: (i
 }
 
 /** The weekdays of the grid's columns, Monday first, in the reader's language. */
-export function weekdayNames(locale?: string): Array<{ short: string; long: string }> {
+export function weekdayNames(locale = readerLocale()): Array<{ short: string; long: string }> {
   const long = new Intl.DateTimeFormat(locale, { weekday: 'long', timeZone: 'UTC' });
   const short = new Intl.DateTimeFormat(locale, { weekday: 'short', timeZone: 'UTC' });
   // 2024-01-01 was a Monday.
@@ -105,7 +107,7 @@ export function weekdayNames(locale?: string): Array<{ short: string; long: stri
 }
 
 /** "May 2026" in the reader's language. */
-export function monthTitle(month: string, locale?: string): string {
+export function monthTitle(month: string, locale = readerLocale()): string {
   const [year, index] = parts(month);
   return new Intl.DateTimeFormat(locale, { month: 'long', year: 'numeric', timeZone: 'UTC' }).format(new Date(Date.UTC(year, index, 1)));
 }
