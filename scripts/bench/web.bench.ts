@@ -86,23 +86,29 @@ type Audit = { numericValue?: number };
 type LighthouseFigures = { score: number; lcpS: number; tbtMs: number; cls: number; report: string };
 
 /** One Lighthouse run; a run whose trace came out broken (it happens on a loaded machine) is run again, twice at most. */
-async function audit(port: number, url: string, cookie: string | undefined, attempt = 1): Promise<LighthouseFigures> {
+async function audit(port: number, url: string, attempt = 1): Promise<LighthouseFigures> {
   try {
-    return await auditOnce(port, url, cookie);
+    return await auditOnce(port, url);
   } catch (error) {
     if (attempt >= 3) throw error;
     console.log(`web: ${String(error)}; running it again`);
-    return audit(port, url, cookie, attempt + 1);
+    return audit(port, url, attempt + 1);
   }
 }
 
-async function auditOnce(port: number, url: string, cookie: string | undefined): Promise<LighthouseFigures> {
+/** The name=value pairs of a Cookie header, as cookies of `url` for a browser's cookie jar. */
+const cookiesOf = (header: string, url: string) =>
+  header.split(';').map((pair) => {
+    const [name, ...value] = pair.trim().split('=');
+    return { name: name!, value: value.join('='), url };
+  });
+
+async function auditOnce(port: number, url: string): Promise<LighthouseFigures> {
   const result = await lighthouse(url, {
     port,
     output: 'json',
     logLevel: 'error',
     onlyCategories: ['performance'],
-    ...(cookie ? { extraHeaders: { Cookie: cookie } } : {}),
   });
   const lhr = result?.lhr;
   if (!lhr) throw new Error(`Lighthouse returned nothing for ${url}`);
@@ -163,8 +169,9 @@ async function createPageData() {
 async function printLayoutShifts(url: string, cookie: string | undefined): Promise<void> {
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH!, headless: true, args: chromeFlags.filter((flag) => flag !== '--headless=new') });
   try {
-    // As Lighthouse does it: its phone's screen, and the session in a header rather than the cookie jar.
-    const context = await browser.newContext({ viewport: { width: 412, height: 823 }, deviceScaleFactor: 1.75, isMobile: true, hasTouch: true, ...(cookie ? { extraHTTPHeaders: { Cookie: cookie } } : {}) });
+    // As Lighthouse's runs: its phone's screen, and the session in the cookie jar.
+    const context = await browser.newContext({ viewport: { width: 412, height: 823 }, deviceScaleFactor: 1.75, isMobile: true, hasTouch: true });
+    if (cookie) await context.addCookies(cookiesOf(cookie, url));
     const page = await context.newPage();
     await page.addInitScript(() => {
       const shifts: string[] = [];
@@ -197,6 +204,9 @@ async function lighthouseResults(distDir: string): Promise<BenchResult[]> {
   const { tech, orderId, supervisor } = await createPageData();
   const api = await startApiProcess({ WEB_DIST_DIR: distDir });
   const chrome = await chromeLauncher.launch({ chromePath, chromeFlags });
+  // The session goes into the browser's own cookie jar, where a phone keeps it, beside the cookies
+  // the app itself writes (its reader format): Lighthouse leaves the jar as it is between runs.
+  const jar = await chromium.connectOverCDP(`http://127.0.0.1:${chrome.port}`);
   const results: BenchResult[] = [];
   try {
     const pages = [
@@ -209,8 +219,11 @@ async function lighthouseResults(distDir: string): Promise<BenchResult[]> {
     for (const page of pages.filter((p) => !only || only.includes(p.slug))) {
       // Warm-up: the API's first answers to these routes (Lighthouse clears the browser's cache itself).
       for (const warm of [page.url, `${api.url}/api/auth/me`]) await (await fetch(warm, { headers: page.cookie ? { cookie: page.cookie } : {} })).arrayBuffer();
+      const cookies = jar.contexts()[0]!;
+      await cookies.clearCookies();
+      if (page.cookie) await cookies.addCookies(cookiesOf(page.cookie, page.url));
       const runs: LighthouseFigures[] = [];
-      for (let i = 0; i < runsPerPage; i++) runs.push(await audit(chrome.port, page.url, page.cookie));
+      for (let i = 0; i < runsPerPage; i++) runs.push(await audit(chrome.port, page.url));
       // The machine's load beside the figures: TBT and LCP grow with it (the CPU is shared).
       const load = os.loadavg().map((l) => l.toFixed(1)).join(' ');
       console.log(`web: Lighthouse ${page.name} (load average ${load}): ${runs.map((r) => `score ${r.score.toFixed(0)} LCP ${r.lcpS.toFixed(2)} s TBT ${r.tbtMs.toFixed(0)} ms CLS ${r.cls.toFixed(3)}`).join('; ')}`);
@@ -228,6 +241,7 @@ async function lighthouseResults(distDir: string): Promise<BenchResult[]> {
       );
     }
   } finally {
+    await jar.close();
     chrome.kill();
     await api.stop();
   }
