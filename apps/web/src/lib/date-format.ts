@@ -1,9 +1,6 @@
 import { readerDateFormat } from './reader-format';
 
 const dateTime = readerDateFormat({ dateStyle: 'medium', timeStyle: 'short' });
-const dateOnly = readerDateFormat({ dateStyle: 'medium' });
-// A calendar date as written (a due date, an installation date): no time zone may move it.
-const calendarDate = readerDateFormat({ dateStyle: 'medium', timeZone: 'UTC' });
 const longDate = readerDateFormat({ weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' });
 
 /** A calendar date as written: YYYY-MM-DD and nothing more. */
@@ -21,14 +18,22 @@ export function formatDateTime(iso: string): string {
 }
 
 /**
- * "3 Dec 2026" in the reader's locale. A calendar date (2026-12-03, a due date) is that day
- * wherever the reader is; a moment (an ISO time) is the day it fell on in the reader's zone.
+ * A day written with `options` in the reader's locale. A calendar date (2026-12-03, a due date,
+ * an installation date) is that day wherever the reader is, so it is read in UTC; a moment (an
+ * ISO time) is the day it fell on in the reader's zone. Text that is not a date stays as it is.
  */
-export function formatDate(iso: string): string {
-  const date = parse(iso);
-  if (!date) return iso;
-  return calendarDateOnly.test(iso) ? calendarDate.format(date) : dateOnly.format(date);
+export function dayFormat(options: Intl.DateTimeFormatOptions): (iso: string) => string {
+  const calendar = readerDateFormat({ ...options, timeZone: 'UTC' });
+  const moment = readerDateFormat(options);
+  return (iso) => {
+    const date = parse(iso);
+    if (!date) return iso;
+    return (calendarDateOnly.test(iso) ? calendar : moment).format(date);
+  };
 }
+
+/** "3 Dec 2026" in the reader's locale (dayFormat). */
+export const formatDate = dayFormat({ dateStyle: 'medium' });
 
 /** "Thursday, 3 December 2026" for a page about one day. */
 export function formatLongDate(date: Date): string {

@@ -1,12 +1,10 @@
 /** How the register writes the values that are not a Quantity with a unit. */
 
-import { readerDateFormat, readerNumberFormat } from '../../../lib/reader-format';
+import { dayFormat } from '../../../lib/date-format';
+import { readerNumberFormat } from '../../../lib/reader-format';
 
 const plain = readerNumberFormat({ maximumFractionDigits: 3 });
-const shortDate = { year: 'numeric', month: 'short', day: 'numeric' } as const;
-// A calendar date as written (an installation date) in UTC, so no time zone moves it; a moment in the reader's zone.
-const calendarDate = readerDateFormat({ ...shortDate, timeZone: 'UTC' });
-const momentDate = readerDateFormat(shortDate);
+const shortDay = dayFormat({ year: 'numeric', month: 'short', day: 'numeric' });
 
 /** A power factor or tan φ: "0.95". */
 export function formatRatio(value: number | null | undefined): string {
@@ -15,11 +13,7 @@ export function formatRatio(value: number | null | undefined): string {
 
 /** A calendar date (YYYY-MM-DD, or an ISO time) as "1 Mar 2024" in the reader's language. */
 export function formatDate(iso: string | null | undefined): string {
-  if (!iso) return '—';
-  const calendar = iso.length === 10;
-  const time = Date.parse(calendar ? `${iso}T00:00:00Z` : iso);
-  if (Number.isNaN(time)) return iso;
-  return (calendar ? calendarDate : momentDate).format(time);
+  return iso ? shortDay(iso) : '—';
 }
 
 /** A detuning factor 0.07 as "7 %". */
