@@ -1,5 +1,5 @@
 import { classNames } from '../lib/class-names';
-import { readerLocale } from '../lib/reader-format';
+import { fractionDigitsFormat } from '../lib/reader-format';
 
 type QuantityProps = {
   value: number | null | undefined;
@@ -9,19 +9,6 @@ type QuantityProps = {
   minimumFractionDigits?: number;
   className?: string;
 };
-
-const formatters = new Map<string, Intl.NumberFormat>();
-
-function formatter(minimumFractionDigits: number, maximumFractionDigits: number): Intl.NumberFormat {
-  const locale = readerLocale();
-  const key = `${locale ?? ''}:${minimumFractionDigits}:${maximumFractionDigits}`;
-  let format = formatters.get(key);
-  if (!format) {
-    format = new Intl.NumberFormat(locale, { minimumFractionDigits, maximumFractionDigits });
-    formatters.set(key, format);
-  }
-  return format;
-}
 
 /**
  * A measured value with its unit: tabular figures, the unit lighter beside it, joined by a
@@ -39,7 +26,7 @@ export function Quantity({ value, unit, maximumFractionDigits = 2, minimumFracti
   const digits = Math.max(minimumFractionDigits, maximumFractionDigits);
   return (
     <span className={classNames('numeric whitespace-nowrap', className)}>
-      <span className="font-medium">{formatter(minimumFractionDigits, digits).format(value)}</span>
+      <span className="font-medium">{fractionDigitsFormat(minimumFractionDigits, digits).format(value)}</span>
       {'\u00A0'}
       <span className="font-normal text-ink-muted">{unit}</span>
     </span>

@@ -64,3 +64,17 @@ export function readerDateFormat(options: Intl.DateTimeFormatOptions): Formatter
   const current = perReader((reader) => new Intl.DateTimeFormat(reader?.locale, { timeZone: reader?.timeZone, ...options }));
   return { format: (value) => current().format(value) };
 }
+
+const fractionFormats = new Map<string, Intl.NumberFormat>();
+
+/** An Intl.NumberFormat with these decimals in `locale`, by default the reader's; one per locale and decimals. */
+export function fractionDigitsFormat(minimumFractionDigits: number, maximumFractionDigits: number, locale = readerLocale()): Intl.NumberFormat {
+  const key = `${locale ?? ''}:${minimumFractionDigits}:${maximumFractionDigits}`;
+  let format = fractionFormats.get(key);
+  if (!format) {
+    if (fractionFormats.size >= 256) fractionFormats.clear();
+    format = new Intl.NumberFormat(locale, { minimumFractionDigits, maximumFractionDigits });
+    fractionFormats.set(key, format);
+  }
+  return format;
+}

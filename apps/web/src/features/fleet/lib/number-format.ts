@@ -1,25 +1,13 @@
-import { readerLocale } from '../../../lib/reader-format';
+import { fractionDigitsFormat } from '../../../lib/reader-format';
 
 /** A no-break space: a number and its unit never part at a line end. */
 export const nbsp = '\u00A0';
-
-const formatters = new Map<string, Intl.NumberFormat>();
-
-function formatter(locale: string | undefined = readerLocale(), minimumFractionDigits: number, maximumFractionDigits: number): Intl.NumberFormat {
-  const key = `${locale ?? ''}:${minimumFractionDigits}:${maximumFractionDigits}`;
-  let format = formatters.get(key);
-  if (!format) {
-    format = new Intl.NumberFormat(locale, { minimumFractionDigits, maximumFractionDigits });
-    formatters.set(key, format);
-  }
-  return format;
-}
 
 /** A number in the reader's locale (or `locale`), with a fixed number of decimals. */
 export function formatNumber(value: number, fractionDigits: number, locale?: string): string {
   // −0 would print as "-0".
   const shown = Object.is(value, -0) ? 0 : value;
-  return formatter(locale, fractionDigits, fractionDigits).format(shown);
+  return fractionDigitsFormat(fractionDigits, fractionDigits, locale).format(shown);
 }
 
 /** "40.2 kvar": a value, a no-break space and its unit, for sentences and chart labels. */
