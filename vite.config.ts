@@ -29,10 +29,11 @@ export default defineConfig({
               test: /node_modules[\\/](react|react-dom|scheduler|react-router|react-router-dom|@tanstack[\\/]query-core|@tanstack[\\/]react-query|zod)[\\/]/,
             },
             {
-              // Vite's preload helper, which the small entry (main.tsx) uses to import the app: its own
-              // chunk, or it would land in the app's and the entry would load the framework with it.
+              // Vite's preload helper and lib/next-task, which the small entry (main.tsx) uses to import
+              // the app: their own chunk, or they would land in the app's and the entry would load the
+              // framework with it, ahead of the first paint.
               name: 'boot',
-              test: /vite[\\/]preload-helper/,
+              test: /vite[\\/]preload-helper|apps[\\/]web[\\/]src[\\/]lib[\\/]next-task\.ts$/,
               priority: 2,
             },
             {

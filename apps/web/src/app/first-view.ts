@@ -2,6 +2,7 @@ import { hydrate, type QueryClient } from '@tanstack/react-query';
 import { matchRoutes, type RouteObject } from 'react-router-dom';
 import type { FirstViewState } from './first-view-state';
 import type { PageHandle } from './router';
+import { nextTask } from '../lib/next-task';
 
 /**
  * Prepares the browser's router and cache for hydrating the server's markup: the server's data
@@ -11,6 +12,7 @@ import type { PageHandle } from './router';
  */
 export async function prepareFirstView(queryClient: QueryClient, routes: RouteObject[], state: FirstViewState, location: Location): Promise<void> {
   hydrate(queryClient, state.queries);
+  await nextTask();
   const lazyMatches = (matchRoutes(routes, location) ?? []).filter((match) => match.route.lazy);
   await Promise.all(
     lazyMatches.map(async ({ route }) => {
@@ -19,6 +21,7 @@ export async function prepareFirstView(queryClient: QueryClient, routes: RouteOb
       Object.assign(route, { ...loaded, lazy: undefined });
     }),
   );
+  await nextTask();
   const pages = matchRoutes(routes, location) ?? [];
   await Promise.all(pages.map(({ route }) => (route.handle as PageHandle | undefined)?.firstViewReady?.()));
 }

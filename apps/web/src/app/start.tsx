@@ -6,6 +6,7 @@ import type { FirstViewState } from './first-view-state';
 import { AppProvider } from './provider';
 import { createQueryClient } from './query-client';
 import { appRoutes } from './router';
+import { nextTask } from '../lib/next-task';
 import { ownReaderFormat, rememberReaderFormat } from '../lib/reader-format';
 
 /**
@@ -18,6 +19,7 @@ export async function startApp(root: HTMLElement, firstView: FirstViewState | un
   const queryClient = createQueryClient();
   const routes = appRoutes(queryClient);
   if (firstView) await prepareFirstView(queryClient, routes, firstView, window.location);
+  await nextTask();
   const router = createBrowserRouter(routes, firstView ? { hydrationData: firstView.router } : undefined);
   const app = (
     <StrictMode>
