@@ -21,8 +21,9 @@ const start = () => {
     const link = Object.assign(document.createElement('link'), { rel: 'modulepreload', href, crossOrigin: '' });
     document.head.append(link);
   }
-  // The framework's code is evaluated in a task of its own, React DOM's in another, then the app's:
-  // all three at once held a phone's main thread for a quarter of a second (the TBT on the order page).
+  // The framework's chunk and React DOM are evaluated first, the app's modules in a later task, and
+  // startApp takes its steps one task at a time (lib/next-task): all of it in one task held a
+  // phone's main thread for a quarter of a second (the TBT on the order page).
   void import('react-dom/client')
     .then(nextTask)
     .then(() => import('./app/start'))
