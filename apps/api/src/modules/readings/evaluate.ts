@@ -2,7 +2,6 @@ import type { Database } from '../../db/client';
 import type { Together } from '../../db/connection-transaction';
 import { runStatement } from '../../db/statement-batch';
 import { AppError } from '../../http/app-error';
-import type { WorkOrderRow } from '../work-orders/order-guard';
 import { evaluateCapacitorReading } from './evaluate-capacitor';
 import { evaluateBankReading, evaluateContactorReading, evaluateFuseReading, evaluateReactorReading } from './evaluate-components';
 import { evaluateStepTuning, type StepUnit } from './evaluate-step';
@@ -17,10 +16,11 @@ import {
   reactorInServiceStatement,
   unitsOfStep,
   unitsOfStepStatement,
+  type LockedOrder,
   type UnitPlaceForReading,
 } from './readings.repository';
 
-const notOnThisBank = (what: string, id: number, order: WorkOrderRow) =>
+const notOnThisBank = (what: string, id: number, order: LockedOrder) =>
   new AppError('invalid', `${what} ${id} is not part of the bank of work order ${order.id}.`, { targetId: `Not a ${what.toLowerCase()} of this order's bank` });
 
 const removed = (what: string, id: number, on: string) =>
@@ -35,7 +35,7 @@ const removed = (what: string, id: number, on: string) =>
  */
 export async function evaluateReading(
   db: Database,
-  order: WorkOrderRow,
+  order: LockedOrder,
   input: ReadingInputValue,
   recordedAt: Date,
   /**
@@ -74,7 +74,7 @@ export async function evaluateReading(
 
 async function evaluateUnit(
   db: Database,
-  order: WorkOrderRow,
+  order: LockedOrder,
   input: InputFor<'capacitor-unit'>,
   recordedAt: Date,
   place: UnitPlaceForReading | undefined,
@@ -108,7 +108,7 @@ async function evaluateUnit(
   return outcome;
 }
 
-async function evaluateReactor(db: Database, order: WorkOrderRow, input: InputFor<'reactor'>): Promise<Outcome> {
+async function evaluateReactor(db: Database, order: LockedOrder, input: InputFor<'reactor'>): Promise<Outcome> {
   const place = await findReactorPlace(db, input.targetId);
   if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Reactor', input.targetId, order);
   if (place.reactor.removedOn) throw removed('Reactor', input.targetId, place.reactor.removedOn);

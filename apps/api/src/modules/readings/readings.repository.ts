@@ -72,9 +72,26 @@ export async function lockOrder(db: Executor, orderId: number) {
   return row;
 }
 
+/**
+ * The order as a reading needs it: the columns its rules (order-guard) and the evaluation read,
+ * not the whole row (its instructions and checklist would be read, parsed and mapped for nothing
+ * on every reading).
+ */
+const lockedOrderColumns = {
+  id: workOrders.id,
+  kind: workOrders.kind,
+  siteId: workOrders.siteId,
+  bankId: workOrders.bankId,
+  state: workOrders.state,
+  locked: workOrders.locked,
+  assigneeId: workOrders.assigneeId,
+};
+
+export type LockedOrder = Pick<WorkOrderRow, keyof typeof lockedOrderColumns>;
+
 const orderAndBankLock = perDatabase((db) =>
   db
-    .select({ order: workOrders, bankId: banks.id })
+    .select({ order: lockedOrderColumns, bankId: banks.id })
     .from(workOrders)
     .innerJoin(banks, eq(banks.id, workOrders.bankId))
     .where(eq(workOrders.id, sql.placeholder('orderId')))
@@ -89,7 +106,7 @@ const orderAndBankLock = perDatabase((db) =>
  * an order that moved on meanwhile. `db` is a transaction's handle (db/connection-transaction.ts).
  */
 export const lockOrderAndBankStatement = (db: Database, orderId: number) =>
-  statement(orderAndBankLock(db), { orderId }, (rows): WorkOrderRow | undefined => rows[0]?.order);
+  statement(orderAndBankLock(db), { orderId }, (rows): LockedOrder | undefined => rows[0]?.order);
 
 export const lockOrderAndBank = (db: Database, orderId: number) => runStatement(lockOrderAndBankStatement(db, orderId));
 

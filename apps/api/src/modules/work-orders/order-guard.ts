@@ -8,6 +8,9 @@ import { AppError } from '../../http/app-error';
 
 export type WorkOrderRow = typeof workOrders.$inferSelect;
 
+/** What the rules below read of an order: a query that only checks them may read just these. */
+export type GuardedOrder = Pick<WorkOrderRow, 'id' | 'siteId' | 'state' | 'locked' | 'assigneeId'>;
+
 /** An order the user may see: missing and out-of-scope orders answer alike (404). */
 const orderById = perDatabase((db) =>
   db
@@ -23,7 +26,7 @@ export async function findVisibleOrder(db: Database, user: SessionUser, orderId:
 }
 
 /** The rule of findVisibleOrder on an order already read (undefined: it does not exist). */
-export function assertVisible(order: WorkOrderRow | undefined, user: SessionUser, orderId: number): WorkOrderRow {
+export function assertVisible<O extends GuardedOrder>(order: O | undefined, user: SessionUser, orderId: number): O {
   const scope = siteScope(user);
   if (!order || (scope !== 'all' && !scope.includes(order.siteId))) {
     throw new AppError('not_found', `Work order ${orderId} does not exist.`);
@@ -40,7 +43,7 @@ export async function findOrderForRecording(db: Database, user: SessionUser, ord
 }
 
 /** The rules of findOrderForRecording on an order already read. */
-export function assertRecordable(order: WorkOrderRow, user: SessionUser): WorkOrderRow {
+export function assertRecordable<O extends GuardedOrder>(order: O, user: SessionUser): O {
   const orderId = order.id;
   if (order.locked) throw new AppError('locked', `Work order ${orderId} is sealed (signed off); its record can no longer change.`);
   if (order.assigneeId !== user.id) {
