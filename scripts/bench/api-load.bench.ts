@@ -7,11 +7,14 @@
 // warm-up of `BENCH_API_WARM_UP_S` (default 3) seconds at the same load before it.
 import { randomBytes } from 'node:crypto';
 import autocannon from 'autocannon';
+import { existsSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 import mysql from 'mysql2/promise';
 import { createDatabase } from '../../apps/api/src/db/client';
 import { applyMigrations } from '../../apps/api/src/db/migrate';
 import { fleetPassword, fullFleet, generateFleet, tenthFleet, type FleetSize, type GeneratedFleet } from './fleet-generator';
 import { signIn, startApiProcess } from './lib/api-process';
+import { processCpuMs } from './lib/process-cpu';
 import { atLeast, atMost, writeResults, type BenchResult } from './lib/result';
 
 const connections = 32;
@@ -25,6 +28,16 @@ const rounds = Number(process.env.BENCH_API_ROUNDS ?? 2);
  * CPU per request than its second (docs/performance.md, seventh pass).
  */
 const warmUpS = Number(process.env.BENCH_API_WARM_UP_S ?? 3);
+/**
+ * For working on one endpoint: `BENCH_API_ONLY="reading submission"` measures only the endpoints
+ * named (comma-separated; the baseline always runs) and `BENCH_API_FLEETS=tenth` only the fleets
+ * named (`tenth`, `full`). A narrowed run reports the budgets of what it measured; only the
+ * whole part has them all.
+ */
+const onlyList = (name: string) => (process.env[name] ?? '').split(',').map((s) => s.trim()).filter(Boolean);
+const onlyEndpoints = onlyList('BENCH_API_ONLY');
+const onlyFleets = onlyList('BENCH_API_FLEETS');
+const wantFleet = (name: 'tenth' | 'full') => onlyFleets.length === 0 || onlyFleets.includes(name);
 const loadBudgetS = 120;
 const readBudget = { ratioPct: 50, p99Ms: 40 };
 const writeBudget = { ratioPct: 25, p99Ms: 60 };
@@ -117,10 +130,35 @@ interface Figures {
   p99: number;
 }
 
-async function hammer(options: autocannon.Options, seconds: number, conns = connections): Promise<Figures & { failed: number }> {
-  const result = await autocannon({ ...options, connections: conns, duration: seconds });
+/** The bench MariaDB's process, for the CPU its share of each request costs (log lines only). */
+function mariadbPid(): number | undefined {
+  const file = process.env.VARDEN_BENCH_DATA_DIR ? path.join(process.env.VARDEN_BENCH_DATA_DIR, 'mariadb', 'mariadb.pid') : '';
+  return file && existsSync(file) ? Number(readFileSync(file, 'utf8').trim()) : undefined;
+}
+
+/** CPU per answered request in the API and in MariaDB, µs: steadier than requests/s on a shared machine. */
+interface CpuPerRequest {
+  apiUs: number;
+  dbUs?: number;
+}
+
+async function hammer(options: autocannon.Options, seconds: number, apiPid: number): Promise<Figures & { failed: number; cpu: CpuPerRequest }> {
+  const dbPid = mariadbPid();
+  const before = { api: processCpuMs(apiPid), db: dbPid ? processCpuMs(dbPid) : 0 };
+  const result = await autocannon({ ...options, connections, duration: seconds });
+  const answered = Math.max(1, result.requests.total);
+  const cpu = {
+    apiUs: (1000 * (processCpuMs(apiPid) - before.api)) / answered,
+    dbUs: dbPid ? (1000 * (processCpuMs(dbPid) - before.db)) / answered : undefined,
+  };
   // A run that got no answer at all is a failure too (every request outlived the run).
-  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, failed: result.non2xx + result.errors + (result.requests.total === 0 ? 1 : 0) };
+  return {
+    rps: result.requests.average,
+    p50: result.latency.p50,
+    p99: result.latency.p99,
+    failed: result.non2xx + result.errors + (result.requests.total === 0 ? 1 : 0),
+    cpu,
+  };
 }
 
 const median = (values: number[]) => {
@@ -135,26 +173,27 @@ async function measureFleet(label: string, url: string, fleet: GeneratedFleet) {
   const failures = new Map<string, number>();
   try {
     const cookies = { planner: await signIn(api.url, fleet.plannerEmail, fleetPassword), technician: await signIn(api.url, fleet.technicianEmail, fleetPassword) };
-    const list = endpoints(fleet);
+    const list = endpoints(fleet).filter((e) => e.kind === 'baseline' || onlyEndpoints.length === 0 || onlyEndpoints.includes(e.name));
+    if (list.length === 1) throw new Error(`BENCH_API_ONLY names no endpoint; they are: ${endpoints(fleet).slice(1).map((e) => e.name).join(', ')}`);
     const samples = new Map<string, Array<Figures & { ratio: number }>>();
-    const record = (round: number, endpoint: Endpoint, figures: Figures & { failed: number }, baseline: number) => {
+    const record = (round: number, endpoint: Endpoint, figures: Figures & { failed: number; cpu: CpuPerRequest }, baseline: number) => {
       if (figures.failed > 0) log(`${label} ${endpoint.name}: ${figures.failed} requests failed or were not answered 2xx`);
       const ratio = baseline > 0 ? (100 * figures.rps) / baseline : 0;
       samples.set(endpoint.name, [...(samples.get(endpoint.name) ?? []), { ...figures, ratio }]);
       failures.set(endpoint.name, (failures.get(endpoint.name) ?? 0) + figures.failed);
-      log(`${label} round ${round}: ${endpoint.name.padEnd(18)} ${figures.rps.toFixed(0).padStart(6)} req/s  p50 ${figures.p50} ms  p99 ${figures.p99} ms  ${ratio.toFixed(0)} % of baseline`);
+      log(`${label} round ${round}: ${endpoint.name.padEnd(18)} ${figures.rps.toFixed(0).padStart(6)} req/s  p50 ${figures.p50} ms  p99 ${figures.p99} ms  ${ratio.toFixed(0)} % of baseline  CPU/request: API ${figures.cpu.apiUs.toFixed(0)} µs${figures.cpu.dbUs === undefined ? '' : `, MariaDB ${figures.cpu.dbUs.toFixed(0)} µs`}`);
     };
     const [baselineEndpoint, ...measured] = list;
     const baselineOptions = baselineEndpoint!.options(api.url, cookies);
     for (let round = 1; round <= rounds; round++) {
       for (const endpoint of measured) {
         // The baseline runs right before each endpoint: the machine's load changes within a minute.
-        await hammer(baselineOptions, warmUpS);
-        const baseline = await hammer(baselineOptions, durationS);
+        await hammer(baselineOptions, warmUpS, api.pid);
+        const baseline = await hammer(baselineOptions, durationS, api.pid);
         record(round, baselineEndpoint!, baseline, baseline.rps);
         const options = endpoint.options(api.url, cookies);
-        await hammer(options, warmUpS);
-        record(round, endpoint, await hammer(options, durationS), baseline.rps);
+        await hammer(options, warmUpS, api.pid);
+        record(round, endpoint, await hammer(options, durationS, api.pid), baseline.rps);
       }
     }
     return list.map((endpoint) => {
@@ -177,17 +216,20 @@ const info = (name: string, value: number, unit: string): BenchResult => ({ name
 
 async function main() {
   const results: BenchResult[] = [];
-  const tenth = await loadFleet('varden_bench_tenth', tenthFleet);
-  results.push(info('api tenth: fleet load time', tenth.fleet.seconds, 's'));
-  const full = await loadFleet('varden_bench_full', fullFleet);
-  results.push(atMost('api full: fleet load time', full.fleet.seconds, 's', loadBudgetS));
-
-  const measured = {
-    tenth: await measureFleet('tenth', tenth.url, tenth.fleet),
-    full: await measureFleet('full', full.url, full.fleet),
-  };
+  if (!wantFleet('tenth') && !wantFleet('full')) throw new Error(`BENCH_API_FLEETS names no fleet; they are: tenth, full`);
+  const measured: Partial<Record<'tenth' | 'full', Awaited<ReturnType<typeof measureFleet>>>> = {};
+  if (wantFleet('tenth')) {
+    const tenth = await loadFleet('varden_bench_tenth', tenthFleet);
+    results.push(info('api tenth: fleet load time', tenth.fleet.seconds, 's'));
+    measured.tenth = await measureFleet('tenth', tenth.url, tenth.fleet);
+  }
+  if (wantFleet('full')) {
+    const full = await loadFleet('varden_bench_full', fullFleet);
+    results.push(atMost('api full: fleet load time', full.fleet.seconds, 's', loadBudgetS));
+    measured.full = await measureFleet('full', full.url, full.fleet);
+  }
   for (const fleet of ['tenth', 'full'] as const) {
-    for (const m of measured[fleet]) {
+    for (const m of measured[fleet] ?? []) {
       const prefix = `api ${fleet}: ${m.endpoint.name}`;
       results.push(info(`${prefix} req/s`, m.rps, 'req/s'), info(`${prefix} p50`, m.p50, 'ms'));
       if (m.failed > 0) results.push(atMost(`${prefix} failed requests`, m.failed, 'requests', 0));
@@ -200,9 +242,9 @@ async function main() {
     }
   }
   // Throughput kept from the one-tenth to the full fleet, each as a share of its own baseline.
-  for (const m of measured.full) {
-    if (m.endpoint.kind === 'baseline') continue;
-    const small = measured.tenth.find((t) => t.endpoint.name === m.endpoint.name)!;
+  for (const m of measured.full ?? []) {
+    const small = measured.tenth?.find((t) => t.endpoint.name === m.endpoint.name);
+    if (m.endpoint.kind === 'baseline' || !small) continue;
     results.push(atLeast(`api: ${m.endpoint.name} throughput kept, tenth → full fleet`, (100 * m.ratio) / small.ratio, '%', keptBudgetPct));
   }
   writeResults(results);

@@ -4,6 +4,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from '../../apps/api/src/app';
 import { loadConfig, type Config } from '../../apps/api/src/config';
 import { closeContext, createContext, type AppContext } from '../../apps/api/src/context';
+import type { Logger } from '../../apps/api/src/logger';
 
 export interface TestApp {
   ctx: AppContext;
@@ -19,9 +20,11 @@ export interface TestApp {
  * The real API on port 0 against the test MariaDB, S3 fake and mail fake that `npm test`
  * started (their addresses arrive in the environment). Jobs are off unless asked for.
  */
-export async function startTestApp(overrides: Partial<Record<keyof Config, string>> = {}): Promise<TestApp> {
+export async function startTestApp(overrides: Partial<Record<keyof Config, string>> = {}, options: { log?: (config: Config) => Logger } = {}): Promise<TestApp> {
   const config = loadConfig({ ...process.env, PORT: '0', JOBS_ENABLED: 'false', ...overrides });
   const ctx = createContext(config);
+  // A logger of the test's own (one that writes where the test reads), set before the app takes it.
+  if (options.log) ctx.log = options.log(config);
   const server = createApp(ctx).listen(0, '127.0.0.1');
   await once(server, 'listening');
   const { port } = server.address() as AddressInfo;
