@@ -491,6 +491,37 @@ describe('idempotency', () => {
   });
 });
 
+describe('readings sent at once (they share transactions: db/transaction-batch.ts)', () => {
+  test('on several banks, two on one bank, one refused and one sent twice: each is stored or refused as if sent alone', async () => {
+    const banks = await Promise.all([0, 1, 2, 3].map(() => onSiteOrder()));
+    const legs = (k: number) => [k, k, k].map((x) => x * C_DELTA_50KVAR_400V);
+    const twice = { idempotencyKey: key(), ...unitReading(banks[1]!.unitIds[0]!, { method: 'per-element', elementsUF: legs(0.97) }) };
+    const sent = [
+      // Every unit of bank 0, each a little lower: several readings on one bank.
+      ...banks[0]!.unitIds.map((unitId, i) => record(banks[0]!.orderId, unitReading(unitId, { method: 'per-element', elementsUF: legs(1 - i / 100) }))),
+      record(banks[1]!.orderId, twice),
+      record(banks[1]!.orderId, twice),
+      // A 12 % loss: a replace flag, raised once.
+      record(banks[2]!.orderId, unitReading(banks[2]!.unitIds[0]!, { method: 'per-element', elementsUF: legs(0.88) })),
+      // A unit of another bank than the order's: refused, alone.
+      record(banks[3]!.orderId, unitReading(banks[2]!.unitIds[1]!, { method: 'per-element', elementsUF: legs(1) })),
+      record(banks[3]!.orderId, unitReading(banks[3]!.unitIds[0]!, { method: 'per-element', elementsUF: legs(0.995) })),
+    ];
+    const answers = await Promise.all(sent);
+    const n = banks[0]!.unitIds.length;
+    expect(answers.slice(0, n).map((a) => a.status)).toEqual(Array(n).fill(201));
+    expect(answers.slice(n + 2).map((a) => a.status)).toEqual([201, 400, 201]);
+    expect([answers[n]!.status, answers[n + 1]!.status].sort()).toEqual([200, 201]);
+    expect(answers[n]!.body.id).toBe(answers[n + 1]!.body.id);
+    expect(answers[n + 3]!.body.error.fields.targetId).toBeDefined();
+    expect([await rowsOf(banks[0]!.orderId), await rowsOf(banks[1]!.orderId), await rowsOf(banks[2]!.orderId), await rowsOf(banks[3]!.orderId)]).toEqual([n, 1, 1, 1]);
+    // Each unit's latest evaluation is its own reading.
+    const latest = await app.ctx.db.select().from(unitLatestEvaluations);
+    for (const [i, unitId] of banks[0]!.unitIds.entries()) expect(latest.find((l) => l.unitId === unitId)).toMatchObject({ readingId: answers[i]!.body.id });
+    expect((await flagsOn('capacitor-unit', banks[2]!.unitIds[0]!)).map((f) => f.kind)).toEqual(['replace']);
+  });
+});
+
 describe('who may record, and when', () => {
   const bankReading = (bankId: number) => ({ target: 'bank', targetId: bankId, cleaningDone: true });
 

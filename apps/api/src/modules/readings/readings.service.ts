@@ -11,7 +11,8 @@ import { cacheKey, readThrough } from '../../db/read-cache';
 import { AppError } from '../../http/app-error';
 import { notifyReplaceFlag } from '../flags/flag-mail';
 import { assertRecordable, assertVisible, findVisibleOrder } from '../work-orders/order-guard';
-import { transactionOnConnection, type Together } from '../../db/connection-transaction';
+import { transactionOnConnection, type Together, type TransactionPool } from '../../db/connection-transaction';
+import { createTransactionBatcher, RunAlone, type BatchClaims, type TransactionBatcher } from '../../db/transaction-batch';
 import { runStatement } from '../../db/statement-batch';
 import { evaluateReading } from './evaluate';
 import type { ReadingInputValue } from './evaluation-types';
@@ -38,6 +39,34 @@ export type FlagRow = typeof flags.$inferSelect;
 const clockSkewMs = 5 * 60 * 1000;
 
 /**
+ * Capacitor readings that arrive while others are being stored share their transaction
+ * (db/transaction-batch.ts): up to 16 in one, two such transactions at once. Each reading claims
+ * its bank, so two readings of one bank never share a transaction (a later one runs on its own,
+ * after the bank's lock is released); a refusal fails only its own reading.
+ */
+const batchers = new WeakMap<TransactionPool, TransactionBatcher>();
+const batcherOf = (pool: TransactionPool) => {
+  let batcher = batchers.get(pool);
+  if (!batcher) {
+    batcher = createTransactionBatcher(pool, { maxWorks: 16, maxBatches: 2, isolated: (error) => error instanceof AppError });
+    batchers.set(pool, batcher);
+  }
+  return batcher;
+};
+
+type Stored = { row: ReadingRow; newFlags: FlagRow[] };
+
+/** A capacitor reading in a shared transaction, or in one of its own when its batch could not commit. */
+async function storeShared(pool: TransactionPool, store: (tx: Database, together: Together, claims?: BatchClaims) => Promise<Stored>): Promise<Stored> {
+  try {
+    return await batcherOf(pool).run(store);
+  } catch (error) {
+    if (!(error instanceof RunAlone)) throw error;
+    return transactionOnConnection(pool, (tx, together) => store(tx, together));
+  }
+}
+
+/**
  * Records a reading on a work order and evaluates it on the server.
  *
  * - Idempotent: the phone's key is unique. A retry by the same person on the same order gets
@@ -57,10 +86,14 @@ export async function recordReading(
   orderId: number,
   input: ReadingInputValue,
 ): Promise<{ reading: Reading; created: boolean }> {
-  let stored: { row: ReadingRow; newFlags: FlagRow[] };
+  let stored: Stored;
   try {
     const recordedAt = recordedAtOf(input);
-    stored = await transactionOnConnection(ctx.transactionPool, (tx, together) => storeReading(tx, together, user, orderId, input, recordedAt));
+    const store = (tx: Database, together: Together, claims?: BatchClaims) => storeReading(tx, together, user, orderId, input, recordedAt, claims);
+    stored =
+      input.target === 'capacitor-unit'
+        ? await storeShared(ctx.transactionPool, store)
+        : await transactionOnConnection(ctx.transactionPool, (tx, together) => store(tx, together));
   } catch (error) {
     // A retry of a reading already stored, or its key used for another: the key tells.
     const refused = error instanceof AppError;
@@ -78,7 +111,8 @@ export async function recordReading(
 /**
  * The transaction of recordReading, on `tx`, a transaction's handle. For a capacitor unit (the
  * common reading) it takes three round trips: the lock with the unit's place, the flags already
- * open if the reading raises any, and the writes with the commit.
+ * open if the reading raises any, and the writes with the commit; in a shared transaction
+ * (storeShared) each of them carries the statements of the batch's other readings too.
  */
 async function storeReading(
   tx: Database,
@@ -87,7 +121,9 @@ async function storeReading(
   orderId: number,
   input: ReadingInputValue,
   recordedAt: Date,
-): Promise<{ row: ReadingRow; newFlags: FlagRow[] }> {
+  /** In a shared transaction (storeShared): the bank is this reading's to write for, or it runs on its own. */
+  claims?: BatchClaims,
+): Promise<Stored> {
   // A second request with the same key waits on the bank's lock, then meets the unique key.
   // For a unit, its place is read in the same round trip, after the lock and so under it.
   const [locked, read] =
@@ -97,6 +133,7 @@ async function storeReading(
         )
       : ([await lockOrderAndBank(tx, orderId), undefined] as const);
   const order = assertRecordable(assertVisible(locked, user, orderId), user);
+  if (claims && !claims.claim(`bank ${order.bankId}`)) throw new RunAlone();
 
   const outcome = await evaluateReading(tx, order, input, recordedAt, read);
   const open = await unclearedFlagKeys(tx, outcome.flags);
