@@ -1,4 +1,4 @@
-import { and, eq, lt, ne, or, sql } from 'drizzle-orm';
+import { and, eq, inArray, lt, ne, or, sql } from 'drizzle-orm';
 import type { Executor } from './executor';
 import type { Database } from '../db/client';
 import { perDatabase } from '../db/prepared';
@@ -39,27 +39,88 @@ export interface SessionRecord {
   user: { id: number; email: string; name: string; active: boolean; roles: Role[] };
 }
 
-const sessionLookup = perDatabase((db) =>
-  db
-    .select({
-      sessionId: sessions.id,
-      lastSeenAt: sessions.lastSeenAt,
-      expiresAt: sessions.expiresAt,
-      userId: users.id,
-      email: users.email,
-      name: users.name,
-      active: users.active,
-      roles: sql<string | null>`(SELECT GROUP_CONCAT(${userRoles.role}) FROM ${userRoles} WHERE ${userRoles.userId} = ${users.id})`,
-    })
-    .from(sessions)
-    .innerJoin(users, eq(users.id, sessions.userId))
-    .where(eq(sessions.tokenHash, sql.placeholder('tokenHash')))
-    .prepare(),
-);
+/** Distinct tokens looked up in one query at most; more wait for the next. */
+const lookupsPerQuery = 32;
 
-/** The session with its user and roles in one round trip. */
+const sessionColumns = {
+  tokenHash: sessions.tokenHash,
+  sessionId: sessions.id,
+  lastSeenAt: sessions.lastSeenAt,
+  expiresAt: sessions.expiresAt,
+  userId: users.id,
+  email: users.email,
+  name: users.name,
+  active: users.active,
+  roles: sql<string | null>`(SELECT GROUP_CONCAT(${userRoles.role}) FROM ${userRoles} WHERE ${userRoles.userId} = ${users.id})`,
+};
+
+/** The lookup of `n` tokens at once, prepared once per database and count. */
+const sessionLookups = perDatabase((db) => {
+  const byCount = new Map<number, ReturnType<typeof build>>();
+  const build = (n: number) =>
+    db
+      .select(sessionColumns)
+      .from(sessions)
+      .innerJoin(users, eq(users.id, sessions.userId))
+      .where(inArray(sessions.tokenHash, Array.from({ length: n }, (_, i) => sql.placeholder(`h${i}`))))
+      .prepare();
+  return (n: number) => {
+    let prepared = byCount.get(n);
+    if (!prepared) byCount.set(n, (prepared = build(n)));
+    return prepared;
+  };
+});
+
+type SessionRow = Awaited<ReturnType<ReturnType<ReturnType<typeof sessionLookups>>['execute']>>[number];
+type Waiter = { resolve: (row: SessionRow | undefined) => void; reject: (error: unknown) => void };
+
+/**
+ * The lookups asked for in one turn of the event loop, sent together once the turn's callbacks
+ * have run (setImmediate): every request a poll of the sockets brought in costs one query
+ * between them, not one each. Each caller's tokens are looked up by a query sent after it
+ * asked, as a lookup of its own would be.
+ */
+const pendingLookups = perDatabase((db) => {
+  const waiting = new Map<string, Waiter[]>();
+  let scheduled = false;
+  const send = () => {
+    scheduled = false;
+    const hashes = [...waiting.keys()].slice(0, lookupsPerQuery);
+    const waiters = hashes.map((h) => [h, waiting.get(h)!] as const);
+    for (const h of hashes) waiting.delete(h);
+    if (waiting.size > 0) schedule();
+    const values = Object.fromEntries(hashes.map((h, i) => [`h${i}`, h]));
+    sessionLookups(db)(hashes.length)
+      .execute(values)
+      .then(
+        (rows) => {
+          for (const [hash, list] of waiters) {
+            const row = rows.find((r) => r.tokenHash === hash);
+            for (const w of list) w.resolve(row);
+          }
+        },
+        (error: unknown) => {
+          for (const [, list] of waiters) for (const w of list) w.reject(error);
+        },
+      );
+  };
+  const schedule = () => {
+    if (scheduled) return;
+    scheduled = true;
+    setImmediate(send);
+  };
+  return (tokenHash: string) =>
+    new Promise<SessionRow | undefined>((resolve, reject) => {
+      const list = waiting.get(tokenHash);
+      if (list) list.push({ resolve, reject });
+      else waiting.set(tokenHash, [{ resolve, reject }]);
+      schedule();
+    });
+});
+
+/** The session with its user and roles (one query for all the lookups of a turn of the event loop). */
 export async function findSession(db: Database, tokenHash: string): Promise<SessionRecord | undefined> {
-  const [row] = await sessionLookup(db).execute({ tokenHash });
+  const row = await pendingLookups(db)(tokenHash);
   if (!row) return undefined;
   return {
     sessionId: row.sessionId,
