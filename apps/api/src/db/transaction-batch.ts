@@ -55,6 +55,18 @@ export interface BatcherOptions {
 export function createTransactionBatcher(pool: TransactionPool, options: BatcherOptions): TransactionBatcher {
   const queue: Queued[] = [];
   let running = 0;
+  let scheduled = false;
+
+  // A batch starts once the turn of the event loop that queued its first work has run its
+  // callbacks (setImmediate), so the works one poll of the sockets brought in go together.
+  const schedule = () => {
+    if (scheduled) return;
+    scheduled = true;
+    setImmediate(() => {
+      scheduled = false;
+      pump();
+    });
+  };
 
   const pump = () => {
     while (running < options.maxBatches && queue.length > 0) {
@@ -62,7 +74,7 @@ export function createTransactionBatcher(pool: TransactionPool, options: Batcher
       running += 1;
       void runBatch(pool, batch, options).finally(() => {
         running -= 1;
-        pump();
+        schedule();
       });
     }
   };
@@ -71,7 +83,7 @@ export function createTransactionBatcher(pool: TransactionPool, options: Batcher
     run<T>(work: BatchWork<T>) {
       return new Promise<T>((resolve, reject) => {
         queue.push({ work: work as BatchWork<unknown>, resolve: resolve as (value: unknown) => void, reject });
-        pump();
+        schedule();
       });
     },
   };
