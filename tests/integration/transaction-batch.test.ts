@@ -38,27 +38,35 @@ const work = (key: string, seen: number[], options: { refuse?: boolean; fail?: b
   return key;
 };
 
-/** A first work that holds the batcher's only batch until `release`, so the next ones queue. */
-function holder(b: ReturnType<typeof batcher>) {
+/** A first work that holds the batcher's only batch until `release`, so the works queued after it has started wait for the next. */
+async function holder(b: ReturnType<typeof batcher>) {
   let release!: () => void;
+  let started!: () => void;
   const gate = new Promise<void>((resolve) => (release = resolve));
+  const running = new Promise<void>((resolve) => (started = resolve));
   const done = b.run(async (tx, together) => {
     await together([connectionId(tx)]);
+    started();
     await gate;
     return 'held';
   });
-  return { release, done };
+  await running;
+  return {
+    release: async () => {
+      release();
+      expect(await done).toBe('held');
+    },
+  };
 }
 
 describe('createTransactionBatcher', () => {
   test('works queued behind a running batch share the next one: one connection, all committed', async () => {
     const b = batcher();
-    const hold = holder(b);
+    const hold = await holder(b);
     const base = unique('batch-shared');
     const seen: number[] = [];
     const works = [0, 1, 2, 3, 4].map((i) => b.run(work(`${base}-${i}`, seen)));
-    hold.release();
-    expect(await hold.done).toBe('held');
+    await hold.release();
     expect(await Promise.all(works)).toEqual([0, 1, 2, 3, 4].map((i) => `${base}-${i}`));
     expect(seen).toHaveLength(5);
     expect(new Set(seen).size).toBe(1); // one transaction, on one connection
@@ -67,11 +75,11 @@ describe('createTransactionBatcher', () => {
 
   test("an isolated refusal fails only its own work; the others' writes are committed", async () => {
     const b = batcher();
-    const hold = holder(b);
+    const hold = await holder(b);
     const base = unique('batch-refusal');
     const seen: number[] = [];
     const works = [b.run(work(`${base}-a`, seen)), b.run(work(`${base}-b`, seen, { refuse: true })), b.run(work(`${base}-c`, seen))];
-    hold.release();
+    await hold.release();
     const settled = await Promise.allSettled(works);
     expect(settled[0]).toEqual({ status: 'fulfilled', value: `${base}-a` });
     expect(settled[1]).toMatchObject({ status: 'rejected', reason: expect.any(Refusal) });
@@ -81,11 +89,11 @@ describe('createTransactionBatcher', () => {
 
   test('any other failure rolls the batch back: nothing of it is stored, the failing work gets RunAlone as the rest do', async () => {
     const b = batcher();
-    const hold = holder(b);
+    const hold = await holder(b);
     const base = unique('batch-failure');
     const seen: number[] = [];
     const works = [b.run(work(`${base}-a`, seen)), b.run(work(`${base}-b`, seen, { fail: true })), b.run(work(`${base}-c`, seen, { refuse: true }))];
-    hold.release();
+    await hold.release();
     const settled = await Promise.allSettled(works);
     expect(settled[0]).toMatchObject({ status: 'rejected', reason: expect.any(RunAlone) });
     expect(settled[1]).toMatchObject({ status: 'rejected', reason: expect.any(RunAlone) });
@@ -98,11 +106,11 @@ describe('createTransactionBatcher', () => {
     const b = batcher();
     const taken = unique('batch-taken');
     await app.ctx.db.insert(readCache).values(row(taken));
-    const hold = holder(b);
+    const hold = await holder(b);
     const base = unique('batch-duplicate');
     const seen: number[] = [];
     const works = [b.run(work(`${base}-a`, seen)), b.run(work(taken, seen)), b.run(work(`${base}-c`, seen))];
-    hold.release();
+    await hold.release();
     const settled = await Promise.allSettled(works);
     expect(settled.map((s) => s.status)).toEqual(['rejected', 'rejected', 'rejected']);
     expect(settled.every((s) => s.status === 'rejected' && s.reason instanceof RunAlone)).toBe(true);
@@ -112,10 +120,10 @@ describe('createTransactionBatcher', () => {
   test('alone in its batch, a work fails with its own error, and a claim is granted once per batch', async () => {
     const b = batcher();
     await expect(b.run(work(unique('batch-alone'), [], { fail: true }))).rejects.toThrow(/^failed batch-alone/);
-    const hold = holder(b);
+    const hold = await holder(b);
     const claims: boolean[] = [];
     const claimers = [0, 1, 2].map((i) => b.run(async (_tx, _together, batch) => claims.push(batch.claim(i === 2 ? 'bank 2' : 'bank 1'))));
-    hold.release();
+    await hold.release();
     await Promise.all(claimers);
     expect(claims).toEqual([true, false, true]);
   });
