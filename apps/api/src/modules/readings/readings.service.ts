@@ -40,15 +40,16 @@ const clockSkewMs = 5 * 60 * 1000;
 
 /**
  * Capacitor readings that arrive while others are being stored share their transaction
- * (db/transaction-batch.ts): up to 16 in one, two such transactions at once. Each reading claims
- * its bank, so two readings of one bank never share a transaction (a later one runs on its own,
- * after the bank's lock is released); a refusal fails only its own reading.
+ * (db/transaction-batch.ts): up to 32 in one, two such transactions at once, so that one
+ * waiting on a lock does not hold up every reading. Each reading claims its bank, so two
+ * readings of one bank never share a transaction (a later one runs on its own, after the bank's
+ * lock is released); a refusal fails only its own reading.
  */
 const batchers = new WeakMap<TransactionPool, TransactionBatcher>();
 const batcherOf = (pool: TransactionPool) => {
   let batcher = batchers.get(pool);
   if (!batcher) {
-    batcher = createTransactionBatcher(pool, { maxWorks: 16, maxBatches: 2, isolated: (error) => error instanceof AppError });
+    batcher = createTransactionBatcher(pool, { maxWorks: 32, maxBatches: 2, isolated: (error) => error instanceof AppError });
     batchers.set(pool, batcher);
   }
   return batcher;
