@@ -78,4 +78,42 @@ describe('transactionOnConnection', () => {
     ).rejects.toThrow(/Duplicate entry/);
     expect(await stored(second)).toBe(0);
   });
+
+  test('each statement is prepared on the server once per connection, and its values reach MariaDB as they were', async () => {
+    type Tx = Parameters<Parameters<typeof transactionOnConnection>[1]>[0];
+    const key = unique('tx-prepared');
+    // Quotes, a question mark, a backslash, a semicolon and letters beyond ASCII: the values go in the USING list.
+    const body = `it's a "body" ? \\ ; -- ünïcode ⚡ ${key}`;
+    const insert = (tx: Tx) =>
+      statement(tx.insert(readCache).values({ ...row(key), body: sql.placeholder('body'), siteId: sql.placeholder('siteId') }).prepare(), { body, siteId: null }, () => 'inserted');
+    const readBack = (tx: Tx, also?: 'revision') =>
+      statement(
+        tx
+          .select({ body: readCache.body, siteId: readCache.siteId, ...(also ? { revision: readCache.revision } : {}) })
+          .from(readCache)
+          .where(eq(readCache.cacheKey, sql.placeholder('k')))
+          .prepare(),
+        { k: key },
+        (rows) => rows,
+      );
+    const sessionCount = async (tx: Tx, name: string) => {
+      const [rows] = (await tx.execute(sql`show session status like ${name}`)) as unknown as [Array<{ Value: string }>];
+      return Number(rows[0]!.Value);
+    };
+    const counts = await transactionOnConnection(app.ctx.transactionPool, async (tx, together) => {
+      await together([insert(tx), readBack(tx)]);
+      const prepared = await sessionCount(tx, 'Com_prepare_sql');
+      const executed = await sessionCount(tx, 'Com_execute_sql');
+      const answers = [];
+      for (let i = 0; i < 3; i++) answers.push(await together([readBack(tx), readBack(tx)]));
+      const afterRepeats = { prepared: await sessionCount(tx, 'Com_prepare_sql'), executed: await sessionCount(tx, 'Com_execute_sql') };
+      // Another SQL text (another column) is prepared the first time only, once for the two.
+      await together([readBack(tx, 'revision'), readBack(tx, 'revision')], { commit: true });
+      return { prepared, executed, answers, afterRepeats, afterNew: await sessionCount(tx, 'Com_prepare_sql') };
+    });
+    expect(counts.answers).toEqual(Array.from({ length: 3 }, () => [[{ body, siteId: null }], [{ body, siteId: null }]]));
+    expect(counts.afterRepeats).toEqual({ prepared: counts.prepared, executed: counts.executed + 6 });
+    expect(counts.afterNew).toBe(counts.prepared + 1);
+    expect(await stored(key)).toBe(1);
+  });
 });
