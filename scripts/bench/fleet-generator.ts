@@ -156,12 +156,19 @@ export async function generateFleet(db: Database, pool: Pool, size: FleetSize, n
     sink.addAll(readings, readingRows.splice(0));
     sink.addAll(flags, [...flagRows.values()]);
     flagRows.clear();
-    // The drift the readings service stores beside each latest evaluation (refreshUnitDrift).
+    // The drift the readings service stores beside each latest evaluation, with the points it was fitted over (unitDrift).
     for (const latest of latestRows.values()) {
       const from = latest.recordedAt.getTime() - driftWindowMs;
-      const points = (unitPoints.get(latest.unitId) ?? []).filter((p) => p.at.getTime() >= from && p.at <= latest.recordedAt);
+      const points = (unitPoints.get(latest.unitId) ?? [])
+        .filter((p) => p.at.getTime() >= from && p.at <= latest.recordedAt)
+        .sort((a, b) => a.at.getTime() - b.at.getTime());
       const drift = points.length < 2 ? null : projectDrift({ points: points.map((p) => ({ date: p.at.toISOString(), deviationPct: p.deviationPct })), replaceBelowPct });
-      sink.add(unitLatestEvaluations, { ...latest, driftRatePctPerYear: drift?.ratePctPerYear ?? null, replaceBy: drift?.replaceBy?.slice(0, 10) ?? null });
+      sink.add(unitLatestEvaluations, {
+        ...latest,
+        driftRatePctPerYear: drift?.ratePctPerYear ?? null,
+        replaceBy: drift?.replaceBy?.slice(0, 10) ?? null,
+        driftPoints: points.map((p) => [p.at.getTime(), p.deviationPct]),
+      });
     }
     latestRows.clear();
     unitPoints.clear();

@@ -101,15 +101,15 @@ const idOf = (text: string) => {
 };
 
 /**
- * Runs the statements in one round trip on `connection` and returns each one's mapped answer.
- * With `commit`, a COMMIT goes last in the same round trip.
+ * Runs the statements (one or more) in one round trip on `connection` and returns each one's
+ * mapped answer. With `commit`, a COMMIT goes last in the same round trip.
  */
 export async function runTogether<const T extends readonly AnyStatement[]>(
   connection: PoolConnection,
   statements: T,
   options: { commit?: boolean } = {},
 ): Promise<Answers<T>> {
-  if (statements.length + (options.commit ? 1 : 0) < 2) throw new Error('runTogether needs two statements or more; run one with runStatement');
+  if (statements.length === 0) throw new Error('runTogether needs a statement');
   // The promise wrapper is new at every checkout; the connection underneath is the lasting one.
   const lasting = (connection as unknown as { connection?: object }).connection ?? connection;
   let prepared = preparedOn.get(lasting);
@@ -136,7 +136,9 @@ export async function runTogether<const T extends readonly AnyStatement[]>(
   if (options.commit) texts.push('commit');
   let results: unknown[];
   try {
-    [results] = (await connection.query({ sql: texts.join(';\n'), rowsAsArray: true, ...datesAsText }, params)) as unknown as [unknown[], unknown];
+    const [answer] = (await connection.query({ sql: texts.join(';\n'), rowsAsArray: true, ...datesAsText }, params)) as unknown as [unknown, unknown];
+    // One statement's answer comes on its own, several as a list of answers.
+    results = texts.length === 1 ? [answer] : (answer as unknown[]);
   } catch (error) {
     // The server no longer has a statement this connection prepared: prepare each again next time.
     if ((error as { errno?: number }).errno === unknownStatementErrno) prepared.clear();

@@ -1,6 +1,6 @@
 import type { Database } from './client';
 import { transactionOnConnection, type Together, type TransactionPool } from './connection-transaction';
-import { runStatement, type AnyStatement, type Statement } from './statement-batch';
+import type { AnyStatement } from './statement-batch';
 
 /**
  * Several units of work in one transaction on one connection, as group commit does for a
@@ -119,8 +119,7 @@ async function runBatch(pool: TransactionPool, batch: Queued[], options: Batcher
         // COMMIT goes with the writes only when they are every running work's last and no work
         // has failed in a way that dooms the batch (its rollback would come too late).
         const commit = !doomed && trip.every((w) => w.commit);
-        const sent = statements.length === 1 && !commit ? runStatement(statements[0] as unknown as Statement<unknown, unknown>).then((answer) => [answer]) : together(statements, { commit });
-        sent.then(
+        together(statements, { commit }).then(
           (answers: unknown[]) => {
             let at = 0;
             for (const w of trip) {

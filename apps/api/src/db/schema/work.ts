@@ -163,6 +163,12 @@ export const unitLatestEvaluations = mysqlTable('unit_latest_evaluations', {
    */
   driftRatePctPerYear: double('drift_rate_pct_per_year'),
   replaceBy: date('replace_by', { mode: 'string' }),
+  /**
+   * The points that drift was fitted over, [epoch milliseconds, deviation %] oldest first: the
+   * unit's next reading fits its drift from these and itself, never reading the history. Null
+   * only on a row written without them (the reading then reads the history once).
+   */
+  driftPoints: json('drift_points').$type<Array<[number, number]>>(),
 }, (t) => [index('unit_latest_evaluations_replace_by').on(t.replaceBy)]);
 
 export const flagKinds = [

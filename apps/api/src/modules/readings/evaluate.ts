@@ -11,7 +11,7 @@ import {
   findContactorPlace,
   findFuseSetPlace,
   findReactorPlace,
-  findUnitPlaceForReading,
+  findUnitPlace,
   latestReadingInput,
   reactorInServiceStatement,
   unitsOfStep,
@@ -46,7 +46,7 @@ export async function evaluateReading(
 ): Promise<Outcome> {
   switch (input.target) {
     case 'capacitor-unit':
-      return evaluateUnit(db, order, input, recordedAt, read ? read.unitPlace : await findUnitPlaceForReading(db, input.targetId, recordedAt), read?.together);
+      return evaluateUnit(db, order, input, recordedAt, read ? read.unitPlace : await findUnitPlace(db, input.targetId), read?.together);
     case 'contactor': {
       const place = await findContactorPlace(db, input.targetId);
       if (!place || place.step.bankId !== order.bankId) throw notOnThisBank('Contactor', input.targetId, order);

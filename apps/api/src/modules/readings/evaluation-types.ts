@@ -28,8 +28,12 @@ export interface Outcome {
   flags: FlagDraft[];
   /** Capacitor units only: what unit_latest_evaluations keeps. */
   unitResult?: { legsUF: number[]; kvarAtRated: number; deviationPct: number; band: Band };
-  /** Capacitor units only: when the reading behind the unit's latest evaluation so far was taken (null before its first), and its stored readings the drift is fitted over. */
-  unitHistory?: { latestAt: Date | null; driftPoints: Array<{ recordedAt: Date; deviationPct: number }> };
+  /**
+   * Capacitor units only: when the reading behind the unit's latest evaluation so far was taken
+   * (null before its first), and the points its drift was fitted over then (null when that
+   * evaluation was stored without them: they are read from the history).
+   */
+  unitHistory?: { latestAt: Date | null; driftPoints: Array<{ recordedAt: Date; deviationPct: number }> | null };
 }
 
 export type SiteRecord = Pick<typeof sites.$inferSelect, 'id' | 'voltageV' | 'frequencyHz' | 'targetPf' | 'tariffBasis' | 'tariffLimit'>;

@@ -1,5 +1,5 @@
 import { projectDrift } from '@varden/engineering';
-import { and, asc, count, desc, eq, inArray, isNull, ne, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lte, ne, sql } from 'drizzle-orm';
 import type { Executor } from '../../access/executor';
 import {
   banks,
@@ -123,18 +123,14 @@ const placeColumns = {
   },
 };
 
-/** The end of the drift window once a reading taken at `at` is stored: the unit's latest reading, this one or one taken later. */
-const windowEndSql = sql`greatest(coalesce(${unitLatestEvaluations.recordedAt}, ${sql.placeholder('recordedAt')}), ${sql.placeholder('recordedAt')})`;
-
 const unitPlaceForReading = perDatabase((db) =>
   db
     .select({
       unit: capacitorUnits,
       ...placeColumns,
       latestRecordedAt: unitLatestEvaluations.recordedAt,
-      // The points the unit's drift is fitted over (unitDrift), as JSON [[recorded_at, deviation_pct], …]:
-      // its readings in the five years up to the window's end, read with the place in one round trip.
-      driftPoints: sql<unknown>`(select json_arrayagg(json_array(history.recorded_at, history.deviation_pct)) from ${readings} as history where history.target = 'capacitor-unit' and history.target_id = ${capacitorUnits.id} and history.deviation_pct is not null and history.recorded_at <= ${windowEndSql} and history.recorded_at >= ${windowEndSql} - interval ${sql.raw(String(driftWindowMs / 1000))} second)`,
+      // The points the unit's drift was fitted over when its latest reading was stored (advanceUnitLatestStatement).
+      driftPoints: unitLatestEvaluations.driftPoints,
     })
     .from(capacitorUnits)
     .innerJoin(steps, eq(steps.id, capacitorUnits.stepId))
@@ -150,31 +146,53 @@ export interface DriftPoint {
   deviationPct: number;
 }
 
+/** The points as unit_latest_evaluations.drift_points keeps them: [epoch milliseconds, deviation %], oldest first. */
+export type StoredDriftPoints = Array<[number, number]>;
+
+const fromStored = (stored: StoredDriftPoints): DriftPoint[] => stored.map(([ms, deviationPct]) => ({ recordedAt: new Date(ms), deviationPct }));
+
 /**
- * findUnitPlace for a reading taken at `recordedAt`, with the unit's stored readings that its
- * drift will be fitted over once this one is stored (the window ends at the later of this
- * reading and the unit's latest).
+ * A unit with its step, bank and site, when the reading behind its latest evaluation was taken
+ * (null before its first), and the points its drift was fitted over then: the unit's readings in
+ * the five years up to its latest, kept beside that evaluation so a reading never reads the
+ * history. `driftPoints` is null for a latest evaluation stored without them (written by an older
+ * version or another tool): the reading then reads them from the history (unitDriftHistoryStatement).
  */
-export const unitPlaceForReadingStatement = (db: Database, unitId: number, recordedAt: Date) =>
-  statement(unitPlaceForReading(db), { unitId, recordedAt }, (rows) => {
+export const unitPlaceForReadingStatement = (db: Database, unitId: number) =>
+  statement(unitPlaceForReading(db), { unitId }, (rows) => {
     const row = rows[0];
     if (!row) return undefined;
     const { driftPoints, ...place } = row;
-    // mysql2 hands a JSON value over parsed; MariaDB writes a datetime in JSON as "2026-12-03 10:00:00.000" (UTC here).
-    const pairs = (typeof driftPoints === 'string' ? JSON.parse(driftPoints) : (driftPoints ?? [])) as Array<[string, number]>;
-    const points: DriftPoint[] = pairs.map(([at, deviationPct]) => ({ recordedAt: new Date(`${at.replace(' ', 'T')}Z`), deviationPct }));
-    return { ...place, driftPoints: points };
+    return { ...place, driftPoints: driftPoints ? fromStored(driftPoints) : place.latestRecordedAt ? null : [] };
   });
 
-export type UnitPlaceForReading = NonNullable<Awaited<ReturnType<typeof findUnitPlaceForReading>>>;
+export type UnitPlaceForReading = NonNullable<Awaited<ReturnType<typeof findUnitPlace>>>;
 
-export const findUnitPlaceForReading = (db: Database, unitId: number, recordedAt: Date) => runStatement(unitPlaceForReadingStatement(db, unitId, recordedAt));
+/** A unit with its step, bank and site (unitPlaceForReadingStatement), read on its own. */
+export const findUnitPlace = (db: Database, unitId: number) => runStatement(unitPlaceForReadingStatement(db, unitId));
 
-/**
- * A unit with its step, bank and site, and when the reading behind its latest evaluation was
- * taken (null before its first): the same query as a reading's, its drift window ending now.
- */
-export const findUnitPlace = (db: Database, unitId: number) => findUnitPlaceForReading(db, unitId, new Date());
+const driftHistory = perDatabase((db) =>
+  db
+    .select({ recordedAt: readings.recordedAt, deviationPct: readings.deviationPct })
+    .from(readings)
+    .where(
+      and(
+        eq(readings.target, 'capacitor-unit'),
+        eq(readings.targetId, sql.placeholder('unitId')),
+        isNotNull(readings.deviationPct),
+        gte(readings.recordedAt, sql.placeholder('from')),
+        lte(readings.recordedAt, sql.placeholder('to')),
+      ),
+    )
+    .orderBy(asc(readings.recordedAt))
+    .prepare(),
+);
+
+/** A unit's stored readings in the drift window ending at `windowEnd`, from the history (readings_target holds all it reads). */
+export const unitDriftHistoryStatement = (db: Database, unitId: number, windowEnd: Date) =>
+  statement(driftHistory(db), { unitId, from: new Date(windowEnd.getTime() - driftWindowMs), to: windowEnd }, (rows): DriftPoint[] =>
+    rows.map((r) => ({ recordedAt: r.recordedAt, deviationPct: r.deviationPct! })),
+  );
 
 export async function findContactorPlace(db: Executor, id: number) {
   const [row] = await db
@@ -303,16 +321,26 @@ export const insertReadingStatement = (db: Database, values: ReadingValues) =>
 /**
  * The unit's drift fitted (projectDrift) over its readings in the five years up to `windowEnd`,
  * the time of the reading behind its latest evaluation: the rate and the projected replacement
- * date stored beside that evaluation, so the fleet dashboard reads one row per unit, never the history.
+ * date stored beside that evaluation, so the fleet dashboard reads one row per unit, never the
+ * history; and the points of that window, stored with them for the unit's next reading.
  */
-export function unitDrift(points: DriftPoint[], windowEnd: Date): { driftRatePctPerYear: number | null; replaceBy: string | null } {
+export function unitDrift(
+  points: DriftPoint[],
+  windowEnd: Date,
+): { driftRatePctPerYear: number | null; replaceBy: string | null; driftPoints: StoredDriftPoints } {
   const from = windowEnd.getTime() - driftWindowMs;
-  const inWindow = points.filter((p) => p.recordedAt.getTime() >= from && p.recordedAt.getTime() <= windowEnd.getTime());
+  const inWindow = points
+    .filter((p) => p.recordedAt.getTime() >= from && p.recordedAt.getTime() <= windowEnd.getTime())
+    .sort((a, b) => a.recordedAt.getTime() - b.recordedAt.getTime());
   const drift =
     inWindow.length < 2
       ? null
       : projectDrift({ points: inWindow.map((p) => ({ date: p.recordedAt.toISOString(), deviationPct: p.deviationPct })), replaceBelowPct });
-  return { driftRatePctPerYear: drift?.ratePctPerYear ?? null, replaceBy: drift?.replaceBy?.slice(0, 10) ?? null };
+  return {
+    driftRatePctPerYear: drift?.ratePctPerYear ?? null,
+    replaceBy: drift?.replaceBy?.slice(0, 10) ?? null,
+    driftPoints: inWindow.map((p) => [p.recordedAt.getTime(), p.deviationPct]),
+  };
 }
 
 const later = sql`VALUES(${sql.identifier('recorded_at')}) >= ${unitLatestEvaluations.recordedAt}`;
@@ -332,6 +360,7 @@ const unitLatestUpsert = perDatabase((db) =>
       recordedAt: sql.placeholder('recordedAt'),
       driftRatePctPerYear: sql.placeholder('driftRatePctPerYear'),
       replaceBy: sql.placeholder('replaceBy'),
+      driftPoints: sql.placeholder('driftPoints'),
     })
     .onDuplicateKeyUpdate({
       set: {
@@ -343,6 +372,7 @@ const unitLatestUpsert = perDatabase((db) =>
         // The drift is fitted over the window up to whichever reading is the latest, so it always moves.
         driftRatePctPerYear: sql`VALUES(${sql.identifier('drift_rate_pct_per_year')})`,
         replaceBy: sql`VALUES(${sql.identifier('replace_by')})`,
+        driftPoints: sql`VALUES(${sql.identifier('drift_points')})`,
         // MariaDB applies the assignments left to right, so recorded_at, which the IFs read, goes last.
         recordedAt: keepLater('recorded_at'),
       },
@@ -370,6 +400,7 @@ export const advanceUnitLatestStatement = (
     recordedAt: Date;
     driftRatePctPerYear: number | null;
     replaceBy: string | null;
+    driftPoints: StoredDriftPoints;
   },
 ) => statement(unitLatestUpsert(db), values, () => undefined);
 

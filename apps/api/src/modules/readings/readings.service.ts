@@ -13,7 +13,6 @@ import { notifyReplaceFlag } from '../flags/flag-mail';
 import { assertRecordable, assertVisible, findVisibleOrder } from '../work-orders/order-guard';
 import { transactionOnConnection, type Together, type TransactionPool } from '../../db/connection-transaction';
 import { createTransactionBatcher, RunAlone, type BatchClaims, type TransactionBatcher } from '../../db/transaction-batch';
-import { runStatement } from '../../db/statement-batch';
 import { evaluateReading } from './evaluate';
 import type { ReadingInputValue } from './evaluation-types';
 import {
@@ -28,6 +27,7 @@ import {
   siteOfUnit,
   unclearedFlagKeys,
   unitDrift,
+  unitDriftHistoryStatement,
   unitPlaceForReadingStatement,
   unitReadingPage,
   type ReadingRow,
@@ -129,7 +129,7 @@ async function storeReading(
   // For a unit, its place is read in the same round trip, after the lock and so under it.
   const [locked, read] =
     input.target === 'capacitor-unit'
-      ? await together([lockOrderAndBankStatement(tx, orderId), unitPlaceForReadingStatement(tx, input.targetId, recordedAt)]).then(
+      ? await together([lockOrderAndBankStatement(tx, orderId), unitPlaceForReadingStatement(tx, input.targetId)]).then(
           ([order, unitPlace]) => [order, { together, unitPlace }] as const,
         )
       : ([await lockOrderAndBank(tx, orderId), undefined] as const);
@@ -164,11 +164,13 @@ async function storeReading(
     const latestAt = outcome.unitHistory?.latestAt;
     const windowEnd = latestAt && latestAt > recordedAt ? latestAt : recordedAt;
     const stored = values.deviationPct === null ? [] : [{ recordedAt, deviationPct: values.deviationPct }];
-    const drift = unitDrift([...(outcome.unitHistory?.driftPoints ?? []), ...stored], windowEnd);
+    // The points kept with the unit's latest evaluation; read from the history only for a row stored without them.
+    const earlier = outcome.unitHistory?.driftPoints ?? (await together([unitDriftHistoryStatement(tx, input.targetId, windowEnd)]))[0];
+    const drift = unitDrift([...earlier, ...stored], windowEnd);
     const advance = advanceUnitLatestStatement(tx, { unitId: input.targetId, recordedAt, ...outcome.unitResult, ...drift });
     [readingId] = await together([insert, advance], { commit });
   } else {
-    [readingId] = commit ? await together([insert], { commit }) : [await runStatement(insert)];
+    [readingId] = await together([insert], { commit });
   }
   const newFlags: FlagRow[] = [];
   const raisedAt = new Date();
