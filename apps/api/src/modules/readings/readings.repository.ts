@@ -123,10 +123,29 @@ const placeColumns = {
   },
 };
 
+/**
+ * The unit's columns a reading's evaluation reads (UnitRecord, and whether it is still in
+ * service), not the whole row: every column costs MariaDB its definition and value and the API
+ * their decoding, on every reading.
+ */
+const evaluatedUnitColumns = {
+  id: capacitorUnits.id,
+  stepId: capacitorUnits.stepId,
+  position: capacitorUnits.position,
+  nameplateKvar: capacitorUnits.nameplateKvar,
+  nameplateVoltageV: capacitorUnits.nameplateVoltageV,
+  nameplateFrequencyHz: capacitorUnits.nameplateFrequencyHz,
+  connection: capacitorUnits.connection,
+  capacitanceUF: capacitorUnits.capacitanceUF,
+  toleranceMinusPct: capacitorUnits.toleranceMinusPct,
+  tolerancePlusPct: capacitorUnits.tolerancePlusPct,
+  removedOn: capacitorUnits.removedOn,
+};
+
 const unitPlaceForReading = perDatabase((db) =>
   db
     .select({
-      unit: capacitorUnits,
+      unit: evaluatedUnitColumns,
       ...placeColumns,
       latestRecordedAt: unitLatestEvaluations.recordedAt,
       // The points the unit's drift was fitted over when its latest reading was stored (advanceUnitLatestStatement).
@@ -266,7 +285,7 @@ export const reactorInServiceStatement = (db: Database, stepId: number) =>
 
 const stepUnits = perDatabase((db) =>
   db
-    .select({ unit: capacitorUnits, legsUF: unitLatestEvaluations.legsUF, recordedAt: unitLatestEvaluations.recordedAt })
+    .select({ unit: evaluatedUnitColumns, legsUF: unitLatestEvaluations.legsUF, recordedAt: unitLatestEvaluations.recordedAt })
     .from(capacitorUnits)
     .leftJoin(unitLatestEvaluations, eq(unitLatestEvaluations.unitId, capacitorUnits.id))
     .where(and(eq(capacitorUnits.stepId, sql.placeholder('stepId')), isNull(capacitorUnits.removedOn)))
