@@ -1,11 +1,12 @@
 // The hot write path's transactions (apps/api/src/db/connection-transaction.ts): on connections
 // that never autocommit, with no BEGIN sent, a transaction is still all or nothing and unseen
 // by others until it commits; the next transaction on the same connection starts clean.
-import { eq } from 'drizzle-orm';
+import { eq, inArray } from 'drizzle-orm';
+import { int, mysqlTable, serial, varchar } from 'drizzle-orm/mysql-core';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { sql } from 'drizzle-orm';
 import { transactionOnConnection } from '../../apps/api/src/db/connection-transaction';
-import { statement } from '../../apps/api/src/db/statement-batch';
+import { mergedInsert, mergedLookup, statement, type AnyStatement, type Merge } from '../../apps/api/src/db/statement-batch';
 import { readCache } from '../../apps/api/src/db/schema/index';
 import { startTestApp, unique, type TestApp } from '../support/test-app';
 
@@ -115,5 +116,73 @@ describe('transactionOnConnection', () => {
     expect(counts.afterRepeats).toEqual({ prepared: counts.prepared, executed: counts.executed + 6 });
     expect(counts.afterNew).toBe(counts.prepared + 1);
     expect(await stored(key)).toBe(1);
+  });
+
+  test('statements of one kind in a trip go as one: lookups by key split back to each, a shared INSERT gives each its own row and its follower that row', async () => {
+    type Tx = Parameters<Parameters<typeof transactionOnConnection>[1]>[0];
+    // Temporary tables: the session's own, gone with it; DDL on them does not end the transaction.
+    const items = mysqlTable('varden_merge_items', { id: serial('id').primaryKey(), label: varchar('label', { length: 40 }).notNull() });
+    const refs = mysqlTable('varden_merge_refs', { label: varchar('label', { length: 40 }).primaryKey(), itemId: int('item_id').notNull() });
+    const lookups = new WeakMap<Tx, Merge>();
+    const inserts = new WeakMap<Tx, Merge>();
+    const followers = new WeakMap<Tx, Merge>();
+    const once = <T>(map: WeakMap<Tx, T>, tx: Tx, make: () => T) => map.get(tx) ?? (map.set(tx, make()), map.get(tx)!);
+    const lookup = (tx: Tx, label: string) =>
+      statement(
+        tx.select().from(items).where(eq(items.label, sql.placeholder('label'))).prepare(),
+        { label },
+        (rows) => rows.map((r) => r.label),
+        {
+          merge: once(lookups, tx, () =>
+            mergedLookup<{ label: string }>('merge test lookup', 'label', (n) => tx.select().from(items).where(inArray(items.label, Array.from({ length: n }, (_, i) => sql.placeholder(`label${i}`)))).prepare(), (r) => r.label),
+          ),
+        },
+      );
+    const insertOf = (tx: Tx, n: number) => tx.insert(items).values(Array.from({ length: n }, (_, i) => ({ label: sql.placeholder(`label${n === 1 ? '' : i}`) }))).$returningId().prepare();
+    const insert = (tx: Tx, label: string) =>
+      statement(insertOf(tx, 1), { label }, (created) => created[0]!.id, { merge: once(inserts, tx, () => mergedInsert('merge test insert', ['label'], (n) => insertOf(tx, n))) });
+    const followerOf = (tx: Tx, n: number) =>
+      tx
+        .insert(refs)
+        .values(Array.from({ length: n }, (_, i) => ({ label: sql.placeholder(`label${n === 1 ? '' : i}`), itemId: sql`last_insert_id() + ${sql.placeholder(`offset${n === 1 ? '' : i}`)}` })))
+        .prepare();
+    const follower = (tx: Tx, label: string, of: AnyStatement) =>
+      statement(followerOf(tx, 1), { label }, () => undefined, {
+        merge: once(followers, tx, () => mergedInsert('merge test follower', ['label', 'offset'], (n) => followerOf(tx, n))),
+        follows: { statement: of, offset: 'offset' },
+      });
+    const executed = async (tx: Tx) => {
+      const [rows] = (await tx.execute(sql`show session status like 'Com_execute_sql'`)) as unknown as [Array<{ Value: string }>];
+      return Number(rows[0]!.Value);
+    };
+    const outcome = await transactionOnConnection(app.ctx.transactionPool, async (tx, together) => {
+      await tx.execute(sql`create temporary table varden_merge_items (id int auto_increment primary key, label varchar(40) not null)`);
+      await tx.execute(sql`create temporary table varden_merge_refs (label varchar(40) primary key, item_id int not null)`);
+      // Ids the shared INSERT must not take for its own: rows already there.
+      await together([insert(tx, 'first'), insert(tx, 'second')]);
+      const labels = ['a', 'b', 'c', 'd'];
+      const before = await executed(tx);
+      const made = labels.map((label) => insert(tx, label));
+      // Each reading's pair as a work sends it: its INSERT, then its follower.
+      const ids = await together(made.flatMap((m, i) => [m, follower(tx, labels[i]!, m)]));
+      const statementsRun = (await executed(tx)) - before;
+      const found = await together([lookup(tx, 'c'), lookup(tx, 'missing'), lookup(tx, 'a'), lookup(tx, 'c')]);
+      const stored = await tx.select().from(items);
+      const pointed = await tx.select().from(refs);
+      const late = insert(tx, 'e');
+      const misplaced = await together([follower(tx, 'e', late), late]).then(
+        () => 'sent',
+        (error: Error) => error.message,
+      );
+      return { ids: ids.filter((_, i) => i % 2 === 0), statementsRun, found, stored, pointed, misplaced };
+    });
+    const idOf = (label: string) => outcome.stored.find((r) => r.label === label)!.id;
+    // Two statements ran for eight: one INSERT of four rows, one of their four followers.
+    expect(outcome.statementsRun).toBe(2);
+    expect(outcome.ids).toEqual(['a', 'b', 'c', 'd'].map(idOf));
+    expect(new Set(outcome.ids).size).toBe(4);
+    for (const label of ['a', 'b', 'c', 'd']) expect(outcome.pointed.find((r) => r.label === label)?.itemId).toBe(idOf(label));
+    expect(outcome.found).toEqual([['c'], [], ['a'], ['c']]);
+    expect(outcome.misplaced).toMatch(/a follower must come after its INSERT/);
   });
 });

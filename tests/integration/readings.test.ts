@@ -518,6 +518,17 @@ describe('readings sent at once (they share transactions: db/transaction-batch.t
     // Each unit's latest evaluation is its own reading.
     const latest = await app.ctx.db.select().from(unitLatestEvaluations);
     for (const [i, unitId] of banks[0]!.unitIds.entries()) expect(latest.find((l) => l.unitId === unitId)).toMatchObject({ readingId: answers[i]!.body.id });
+    const others = [
+      [banks[1]!.unitIds[0]!, answers[n]!],
+      [banks[2]!.unitIds[0]!, answers[n + 2]!],
+      [banks[3]!.unitIds[0]!, answers[n + 4]!],
+    ] as const;
+    for (const [unitId, answer] of others) expect(latest.find((l) => l.unitId === unitId)).toMatchObject({ readingId: answer.body.id });
+    // Each answer's id is its own stored row (the rows of a shared INSERT are told apart by their ids).
+    for (const answer of [...answers.slice(0, n), ...others.map(([, a]) => a)]) {
+      const [row] = await app.ctx.db.select().from(readings).where(eq(readings.id, answer.body.id));
+      expect(row).toMatchObject({ idempotencyKey: answer.body.idempotencyKey, targetId: answer.body.targetId, deviationPct: answer.body.deviationPct });
+    }
     expect((await flagsOn('capacitor-unit', banks[2]!.unitIds[0]!)).map((f) => f.kind)).toEqual(['replace']);
   });
 });

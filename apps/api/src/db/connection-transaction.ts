@@ -1,7 +1,7 @@
 import { drizzle } from 'drizzle-orm/mysql2';
 import mysql, { type Pool, type PoolConnection } from 'mysql2/promise';
 import { poolOptions, type Database } from './client';
-import { runTogether, type AnyStatement, type Answers } from './statement-batch';
+import { noteAutoIncrementMode, runTogether, type AnyStatement, type Answers } from './statement-batch';
 import * as schema from './schema/index';
 
 /**
@@ -11,13 +11,17 @@ import * as schema from './schema/index';
  */
 const handles = new WeakMap<object, Database>();
 
-/** The connection's handle; the first time, the connection is also set never to autocommit. */
+/**
+ * The connection's handle; the first time, the connection is also set never to autocommit, and
+ * its server's auto-increment lock mode noted (merged INSERTs need consecutive ids, statement-batch.ts).
+ */
 async function handleOf(connection: PoolConnection): Promise<Database> {
   // The promise wrapper is new at every checkout; the connection underneath is the lasting one.
   const lasting = connection.connection as object;
   let handle = handles.get(lasting);
   if (!handle) {
-    await connection.query('set autocommit = 0');
+    const [answers] = (await connection.query('set autocommit = 0; select @@innodb_autoinc_lock_mode as mode')) as unknown as [[unknown, Array<{ mode: number }>]];
+    noteAutoIncrementMode(connection, Number(answers[1][0]?.mode));
     // Typed as the pool's handle: it runs the same queries, only its $client (unused) is a connection.
     handle = drizzle(connection, { schema, mode: 'planetscale' }) as unknown as Database;
     handles.set(lasting, handle);

@@ -24,14 +24,97 @@ export interface PreparedQuery<Result> {
 }
 
 /** A prepared query with its values and what its caller makes of the answer. */
-export interface Statement<Result, Value> {
+export interface Statement<Result, Value> extends Sendable {
   prepared: PreparedQuery<Result>;
   values: Record<string, unknown>;
   map: (result: Result) => Value;
 }
 
-export function statement<Result, Value>(prepared: PreparedQuery<Result>, values: Record<string, unknown>, map: (result: Result) => Value): Statement<Result, Value> {
-  return { prepared, values, map };
+/** What runTogether may do with a statement besides sending it as it is. */
+interface Sendable {
+  /** Statements of one kind sent in one round trip go as one statement (mergeable). */
+  merge?: Merge;
+  /**
+   * An INSERT whose row this statement points to with `last_insert_id() + offset`: the value
+   * named `offset` is set to the row's place among the rows that INSERT went out with.
+   */
+  follows?: { statement: AnyStatement; offset: string };
+}
+
+export function statement<Result, Value>(
+  prepared: PreparedQuery<Result>,
+  values: Record<string, unknown>,
+  map: (result: Result) => Value,
+  more: Sendable = {},
+): Statement<Result, Value> {
+  return { prepared, values, map, ...more };
+}
+
+/**
+ * How several statements of one kind, sent in one round trip, go as one: a lookup of several
+ * keys with IN, or an INSERT of several rows. One statement costs MariaDB its dispatch, its
+ * tables' opening and locking, its plan and a network write of its answer, and costs the API an
+ * answer to decode with its column definitions; the hot write path's shared transactions
+ * (db/transaction-batch.ts) send each kind once per round trip instead of once per reading.
+ */
+export interface Merge {
+  /** Statements with the same key are merged. */
+  key: string;
+  /** An INSERT's merge, which needs a connection whose INSERTs number their rows consecutively (consecutiveIds). */
+  insert?: boolean;
+  /** The one statement for these statements' values, in their order. */
+  build(values: ReadonlyArray<Record<string, unknown>>): { prepared: PreparedQuery<unknown>; values: Record<string, unknown> };
+  /** The merged statement's answer (its rows as Drizzle maps them, its new ids, or its header), split into each statement's. */
+  split(answer: unknown, values: ReadonlyArray<Record<string, unknown>>): unknown[];
+}
+
+/** Merged prepared queries, built once per handle and count (a query's SQL differs with its count). */
+function perCount(build: (n: number) => PreparedQuery<unknown>): (n: number) => PreparedQuery<unknown> {
+  const built = new Map<number, PreparedQuery<unknown>>();
+  return (n) => {
+    let prepared = built.get(n);
+    if (!prepared) built.set(n, (prepared = build(n)));
+    return prepared;
+  };
+}
+
+/** Values named `name0`, `name1`, … for a merged statement: each statement's `name` under its place. */
+function numbered(values: ReadonlyArray<Record<string, unknown>>, names: readonly string[]): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  values.forEach((v, i) => {
+    for (const name of names) out[`${name}${i}`] = v[name];
+  });
+  return out;
+}
+
+/**
+ * A lookup by one key (`name`), merged as one lookup of every key: `build(n)` prepares it for n
+ * keys, placeholders `name0` … `name{n-1}`; each statement gets the rows whose `keyOf` is its key.
+ */
+export function mergedLookup<Row>(key: string, name: string, build: (n: number) => PreparedQuery<unknown>, keyOf: (row: Row) => unknown): Merge {
+  const prepared = perCount(build);
+  return {
+    key,
+    build: (values) => ({ prepared: prepared(values.length), values: numbered(values, [name]) }),
+    split: (rows, values) => values.map((v) => (rows as Row[]).filter((row) => keyOf(row) === v[name])),
+  };
+}
+
+/**
+ * An INSERT of one row (placeholders `names`), merged as one INSERT of every row: `build(n)`
+ * prepares it for n rows, placeholders suffixed with the row's place. An INSERT with
+ * $returningId() gives each statement its own row's id (InnoDB numbers the rows of one
+ * multi-row INSERT consecutively, as Drizzle's $returningId() also reads them); any other
+ * INSERT gives each statement the merged one's header.
+ */
+export function mergedInsert(key: string, names: readonly string[], build: (n: number) => PreparedQuery<unknown>): Merge {
+  const prepared = perCount(build);
+  return {
+    key,
+    insert: true,
+    build: (values) => ({ prepared: prepared(values.length), values: numbered(values, names) }),
+    split: (answer, values) => (Array.isArray(answer) ? values.map((_, i) => [answer[i]]) : values.map(() => answer)),
+  };
 }
 
 /** One statement on its own (its prepared query's usual round trip). */
@@ -72,7 +155,7 @@ function internalsOf(prepared: PreparedQuery<unknown>): PreparedInternals {
 const datesAsText = { dateStrings: true } as const;
 
 /** Any statement, whatever its answer. */
-export interface AnyStatement {
+export interface AnyStatement extends Sendable {
   prepared: PreparedQuery<unknown>;
   values: Record<string, unknown>;
   map: (result: never) => unknown;
@@ -94,15 +177,81 @@ const preparedIds = new Map<string, number>();
 const unknownStatementErrno = 1243;
 const preparedOn = new WeakMap<object, Set<number>>();
 
+/**
+ * Connections whose server numbers the rows of one multi-row INSERT consecutively: InnoDB with
+ * innodb_autoinc_lock_mode 0 or 1 (MariaDB's default is 1); in mode 2 ("interleaved") another
+ * session's rows may come between, and INSERTs are then never merged.
+ */
+const consecutive = new WeakSet<object>();
+
+/** Marks a connection for merged INSERTs once its server's auto-increment lock mode is known (db/connection-transaction.ts). */
+export function noteAutoIncrementMode(connection: PoolConnection, mode: number): void {
+  const lasting = (connection as unknown as { connection?: object }).connection ?? connection;
+  if (mode === 0 || mode === 1) consecutive.add(lasting);
+  else consecutive.delete(lasting);
+}
+
 const idOf = (text: string) => {
   let id = preparedIds.get(text);
   if (id === undefined) preparedIds.set(text, (id = preparedIds.size + 1));
   return id;
 };
 
+/** One statement as sent: a statement as it is, or several merged into one. */
+interface Sent {
+  prepared: PreparedQuery<unknown>;
+  values: Record<string, unknown>;
+  /** The statements it answers, by their place in the call, and the merge that split the answer. */
+  members: number[];
+  merge?: Merge;
+}
+
+/**
+ * The statements as they go: those of one merge key (when two or more are in the trip) merged
+ * into one at the place of the first; a follower's offset set to its INSERT's row.
+ */
+function toSend(statements: readonly AnyStatement[], mergeInserts: boolean): Sent[] {
+  const counts = new Map<string, number>();
+  for (const s of statements) if (s.merge && (mergeInserts || !s.merge.insert)) counts.set(s.merge.key, (counts.get(s.merge.key) ?? 0) + 1);
+  const sent: Sent[] = [];
+  const groups = new Map<string, Sent>();
+  statements.forEach((s, i) => {
+    const key = s.merge && (counts.get(s.merge.key) ?? 0) > 1 ? s.merge.key : undefined;
+    const group = key === undefined ? undefined : groups.get(key);
+    if (group) group.members.push(i);
+    else {
+      const entry: Sent = { prepared: s.prepared, values: s.values, members: [i], merge: key === undefined ? undefined : s.merge };
+      sent.push(entry);
+      if (key !== undefined) groups.set(key, entry);
+    }
+  });
+  const entryOf = (i: number) => sent.findIndex((e) => e.members.includes(i));
+  const values = statements.map((s, i) => {
+    if (!s.follows) return s.values;
+    const followed = statements.indexOf(s.follows.statement);
+    if (followed < 0) return { ...s.values, [s.follows.offset]: 0 };
+    const [from, to] = [entryOf(followed), entryOf(i)];
+    // last_insert_id() is the first row of the last INSERT that made ids: the followed one, sent just before.
+    const between = sent.slice(from + 1, to).some((e) => internalsOf(e.prepared).returningIds?.length);
+    if (from >= to || between) throw new Error('statement-batch: a follower must come after its INSERT, with no other INSERT of new ids between');
+    return { ...s.values, [s.follows.offset]: sent[from]!.members.indexOf(followed) };
+  });
+  for (const entry of sent) {
+    if (!entry.merge) {
+      entry.values = values[entry.members[0]!]!;
+      continue;
+    }
+    const built = entry.merge.build(entry.members.map((i) => values[i]!));
+    entry.prepared = built.prepared;
+    entry.values = built.values;
+  }
+  return sent;
+}
+
 /**
  * Runs the statements (one or more) in one round trip on `connection` and returns each one's
- * mapped answer. With `commit`, a COMMIT goes last in the same round trip.
+ * mapped answer. With `commit`, a COMMIT goes last in the same round trip. Statements with a
+ * merge (mergedLookup, mergedInsert) go as one statement of their kind per trip.
  */
 export async function runTogether<const T extends readonly AnyStatement[]>(
   connection: PoolConnection,
@@ -116,12 +265,12 @@ export async function runTogether<const T extends readonly AnyStatement[]>(
   if (!prepared) preparedOn.set(lasting, (prepared = new Set()));
   const texts: string[] = [];
   const params: unknown[] = [];
-  // Where each statement's answer is among the trip's results (a PREPARE has one of its own).
+  // Where each sent statement's answer is among the trip's results (a PREPARE has one of its own).
   const at: number[] = [];
   const preparing: number[] = [];
-  const parts = statements.map((s) => {
-    const internals = internalsOf(s.prepared);
-    const own = fillPlaceholders(internals.params, s.values);
+  const sent = toSend(statements, consecutive.has(lasting)).map((entry) => {
+    const internals = internalsOf(entry.prepared);
+    const own = fillPlaceholders(internals.params, entry.values);
     const id = idOf(internals.fields ? internals.query.sql : internals.rawQuery.sql);
     if (!prepared.has(id) && !preparing.includes(id)) {
       texts.push(`prepare varden_${id} from ?`);
@@ -131,7 +280,7 @@ export async function runTogether<const T extends readonly AnyStatement[]>(
     at.push(texts.length);
     texts.push(own.length === 0 ? `execute varden_${id}` : `execute varden_${id} using ${own.map(() => '?').join(', ')}`);
     params.push(...own);
-    return { s, internals };
+    return { entry, internals };
   });
   if (options.commit) texts.push('commit');
   let results: unknown[];
@@ -145,19 +294,28 @@ export async function runTogether<const T extends readonly AnyStatement[]>(
     throw error;
   }
   for (const id of preparing) prepared.add(id);
-  return parts.map(({ s, internals }, i) => {
-    const result = results[at[i]!];
-    if (internals.fields) {
-      const fields = internals.fields;
-      return (s.map as (r: unknown) => unknown)((result as unknown[][]).map((row) => mapResultRow(fields, row, internals.joinsNotNullableMap)));
-    }
-    const header = result as ResultSetHeader;
-    if (internals.returningIds?.length) {
-      // As Drizzle's $returningId(): the auto-increment ids of the rows inserted, under the key's name.
-      const key = internals.returningIds[0]!.path[0]!;
-      const ids = Array.from({ length: header.affectedRows }, (_, j) => ({ [key]: header.insertId + j }));
-      return (s.map as (r: unknown) => unknown)(ids);
-    }
-    return (s.map as (r: unknown) => unknown)(header);
-  }) as Answers<T>;
+  const answers: unknown[] = new Array(statements.length);
+  sent.forEach(({ entry, internals }, i) => {
+    const raw = rawAnswer(internals, results[at[i]!]);
+    const own = entry.merge ? entry.merge.split(raw, entry.members.map((m) => statements[m]!.values)) : [raw];
+    entry.members.forEach((m, j) => {
+      answers[m] = (statements[m]!.map as (r: unknown) => unknown)(own[j]);
+    });
+  });
+  return answers as Answers<T>;
+}
+
+/** A statement's answer as its Drizzle prepared query would give it. */
+function rawAnswer(internals: PreparedInternals, result: unknown): unknown {
+  if (internals.fields) {
+    const fields = internals.fields;
+    return (result as unknown[][]).map((row) => mapResultRow(fields, row, internals.joinsNotNullableMap));
+  }
+  const header = result as ResultSetHeader;
+  if (internals.returningIds?.length) {
+    // As Drizzle's $returningId(): the auto-increment ids of the rows inserted, under the key's name.
+    const key = internals.returningIds[0]!.path[0]!;
+    return Array.from({ length: header.affectedRows }, (_, j) => ({ [key]: header.insertId + j }));
+  }
+  return header;
 }

@@ -1,5 +1,5 @@
 import { projectDrift } from '@varden/engineering';
-import { and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lte, ne, sql } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gte, inArray, isNotNull, isNull, lte, ne, sql, type SQL } from 'drizzle-orm';
 import type { Executor } from '../../access/executor';
 import {
   banks,
@@ -18,7 +18,7 @@ import {
 import { offset } from '../../db/versioned';
 import type { Database } from '../../db/client';
 import { perDatabase } from '../../db/prepared';
-import { runStatement, statement } from '../../db/statement-batch';
+import { mergedInsert, mergedLookup, runStatement, statement, type AnyStatement } from '../../db/statement-batch';
 import type { FlagDraft, ReadingTarget } from './evaluation-types';
 import type { WorkOrderRow } from '../work-orders/order-guard';
 import type { StepUnit } from './evaluate-step';
@@ -89,14 +89,22 @@ const lockedOrderColumns = {
 
 export type LockedOrder = Pick<WorkOrderRow, keyof typeof lockedOrderColumns>;
 
-const orderAndBankLock = perDatabase((db) =>
+/** Placeholders `name0` … `name{n-1}`, for a statement merged from n (db/statement-batch.ts). */
+const placeholders = (name: string, n: number) => Array.from({ length: n }, (_, i) => sql.placeholder(`${name}${i}`));
+
+const orderAndBankLockWhere = (db: Database, where: SQL) =>
   db
     .select({ order: lockedOrderColumns, bankId: banks.id })
     .from(workOrders)
     .innerJoin(banks, eq(banks.id, workOrders.bankId))
-    .where(eq(workOrders.id, sql.placeholder('orderId')))
+    .where(where)
     .for('update')
-    .prepare(),
+    .prepare();
+
+const orderAndBankLock = perDatabase((db) => orderAndBankLockWhere(db, eq(workOrders.id, sql.placeholder('orderId'))));
+/** The locks of a shared transaction's readings, sent together, as one statement (InnoDB then locks the orders in the order of their ids). */
+const orderAndBankLocks = perDatabase((db) =>
+  mergedLookup<{ order: LockedOrder }>('order and bank lock', 'orderId', (n) => orderAndBankLockWhere(db, inArray(workOrders.id, placeholders('orderId', n))), (row) => row.order.id),
 );
 
 /**
@@ -106,7 +114,7 @@ const orderAndBankLock = perDatabase((db) =>
  * an order that moved on meanwhile. `db` is a transaction's handle (db/connection-transaction.ts).
  */
 export const lockOrderAndBankStatement = (db: Database, orderId: number) =>
-  statement(orderAndBankLock(db), { orderId }, (rows): LockedOrder | undefined => rows[0]?.order);
+  statement(orderAndBankLock(db), { orderId }, (rows): LockedOrder | undefined => rows[0]?.order, { merge: orderAndBankLocks(db) });
 
 export const lockOrderAndBank = (db: Database, orderId: number) => runStatement(lockOrderAndBankStatement(db, orderId));
 
@@ -142,7 +150,7 @@ const evaluatedUnitColumns = {
   removedOn: capacitorUnits.removedOn,
 };
 
-const unitPlaceForReading = perDatabase((db) =>
+const unitPlaceWhere = (db: Database, where: SQL) =>
   db
     .select({
       unit: evaluatedUnitColumns,
@@ -156,8 +164,12 @@ const unitPlaceForReading = perDatabase((db) =>
     .innerJoin(banks, eq(banks.id, steps.bankId))
     .innerJoin(sites, eq(sites.id, banks.siteId))
     .leftJoin(unitLatestEvaluations, eq(unitLatestEvaluations.unitId, capacitorUnits.id))
-    .where(eq(capacitorUnits.id, sql.placeholder('unitId')))
-    .prepare(),
+    .where(where)
+    .prepare();
+
+const unitPlaceForReading = perDatabase((db) => unitPlaceWhere(db, eq(capacitorUnits.id, sql.placeholder('unitId'))));
+const unitPlacesForReadings = perDatabase((db) =>
+  mergedLookup<{ unit: { id: number } }>('unit place', 'unitId', (n) => unitPlaceWhere(db, inArray(capacitorUnits.id, placeholders('unitId', n))), (row) => row.unit.id),
 );
 
 export interface DriftPoint {
@@ -178,12 +190,17 @@ const fromStored = (stored: StoredDriftPoints): DriftPoint[] => stored.map(([ms,
  * version or another tool): the reading then reads them from the history (unitDriftHistoryStatement).
  */
 export const unitPlaceForReadingStatement = (db: Database, unitId: number) =>
-  statement(unitPlaceForReading(db), { unitId }, (rows) => {
-    const row = rows[0];
-    if (!row) return undefined;
-    const { driftPoints, ...place } = row;
-    return { ...place, driftPoints: driftPoints ? fromStored(driftPoints) : place.latestRecordedAt ? null : [] };
-  });
+  statement(
+    unitPlaceForReading(db),
+    { unitId },
+    (rows) => {
+      const row = rows[0];
+      if (!row) return undefined;
+      const { driftPoints, ...place } = row;
+      return { ...place, driftPoints: driftPoints ? fromStored(driftPoints) : place.latestRecordedAt ? null : [] };
+    },
+    { merge: unitPlacesForReadings(db) },
+  );
 
 export type UnitPlaceForReading = NonNullable<Awaited<ReturnType<typeof findUnitPlace>>>;
 
@@ -312,30 +329,40 @@ export async function latestReadingInput(db: Executor, target: ReadingTarget, ta
   return row;
 }
 
-const readingInsert = perDatabase((db) =>
+const readingColumnNames = [
+  'workOrderId',
+  'idempotencyKey',
+  'target',
+  'targetId',
+  'input',
+  'evaluation',
+  'engineeringVersion',
+  'band',
+  'deviationPct',
+  'recordedById',
+  'recordedAt',
+] as const;
+
+/** The placeholders of one row: each column's name, suffixed with the row's place in a merged INSERT. */
+const rowOf = <N extends string>(names: readonly N[], suffix: number | '') =>
+  Object.fromEntries(names.map((name) => [name, sql.placeholder(`${name}${suffix}`)])) as Record<N, ReturnType<typeof sql.placeholder>>;
+
+const readingInsertOf = (db: Database, rows: Array<number | ''>) =>
   db
     .insert(readings)
-    .values({
-      workOrderId: sql.placeholder('workOrderId'),
-      idempotencyKey: sql.placeholder('idempotencyKey'),
-      target: sql.placeholder('target'),
-      targetId: sql.placeholder('targetId'),
-      input: sql.placeholder('input'),
-      evaluation: sql.placeholder('evaluation'),
-      engineeringVersion: sql.placeholder('engineeringVersion'),
-      band: sql.placeholder('band'),
-      deviationPct: sql.placeholder('deviationPct'),
-      recordedById: sql.placeholder('recordedById'),
-      recordedAt: sql.placeholder('recordedAt'),
-    })
+    .values(rows.map((suffix) => rowOf(readingColumnNames, suffix)))
     .$returningId()
-    .prepare(),
+    .prepare();
+
+const readingInsert = perDatabase((db) => readingInsertOf(db, ['']));
+const readingInserts = perDatabase((db) =>
+  mergedInsert('reading insert', readingColumnNames, (n) => readingInsertOf(db, Array.from({ length: n }, (_, i) => i))),
 );
 
 type ReadingValues = Omit<typeof readings.$inferInsert, 'id' | 'createdAt'>;
 
 export const insertReadingStatement = (db: Database, values: ReadingValues) =>
-  statement(readingInsert(db), { band: null, deviationPct: null, ...values }, (created) => created[0]!.id);
+  statement(readingInsert(db), { band: null, deviationPct: null, ...values }, (created) => created[0]!.id, { merge: readingInserts(db) });
 
 /**
  * The unit's drift fitted (projectDrift) over its readings in the five years up to `windowEnd`,
@@ -365,22 +392,19 @@ export function unitDrift(
 const later = sql`VALUES(${sql.identifier('recorded_at')}) >= ${unitLatestEvaluations.recordedAt}`;
 const keepLater = (column: string) => sql`IF(${later}, VALUES(${sql.identifier(column)}), ${sql.identifier(column)})`;
 
-const unitLatestUpsert = perDatabase((db) =>
+const latestColumnNames = ['unitId', 'band', 'deviationPct', 'kvarAtRated', 'legsUF', 'recordedAt', 'driftRatePctPerYear', 'replaceBy', 'driftPoints'] as const;
+
+const unitLatestUpsertOf = (db: Database, rows: Array<number | ''>) =>
   db
     .insert(unitLatestEvaluations)
-    .values({
-      unitId: sql.placeholder('unitId'),
-      // The reading inserted just before on this connection (insertReadingStatement, sent with this one).
-      readingId: sql`last_insert_id()`,
-      band: sql.placeholder('band'),
-      deviationPct: sql.placeholder('deviationPct'),
-      kvarAtRated: sql.placeholder('kvarAtRated'),
-      legsUF: sql.placeholder('legsUF'),
-      recordedAt: sql.placeholder('recordedAt'),
-      driftRatePctPerYear: sql.placeholder('driftRatePctPerYear'),
-      replaceBy: sql.placeholder('replaceBy'),
-      driftPoints: sql.placeholder('driftPoints'),
-    })
+    .values(
+      rows.map((suffix) => ({
+        ...rowOf(latestColumnNames, suffix),
+        // The reading inserted just before on this connection (insertReadingStatement, sent with this one):
+        // LAST_INSERT_ID() is the first row of that INSERT, and this unit's reading is `readingOffset` rows on.
+        readingId: sql`last_insert_id() + ${sql.placeholder(`readingOffset${suffix}`)}`,
+      })),
+    )
     .onDuplicateKeyUpdate({
       set: {
         readingId: keepLater('reading_id'),
@@ -396,7 +420,11 @@ const unitLatestUpsert = perDatabase((db) =>
         recordedAt: keepLater('recorded_at'),
       },
     })
-    .prepare(),
+    .prepare();
+
+const unitLatestUpsert = perDatabase((db) => unitLatestUpsertOf(db, ['']));
+const unitLatestUpserts = perDatabase((db) =>
+  mergedInsert('unit latest upsert', [...latestColumnNames, 'readingOffset'], (n) => unitLatestUpsertOf(db, Array.from({ length: n }, (_, i) => i))),
 );
 
 /**
@@ -406,10 +434,15 @@ const unitLatestUpsert = perDatabase((db) =>
  * and two banks' first readings then deadlock on each other's gap when they insert (seen under
  * the field load test). Readings of one unit are already serialised by the bank lock; the IF
  * keeps the later reading when they arrive out of order. Sent right after insertReadingStatement,
- * in the same round trip (runTogether): the reading it points to is LAST_INSERT_ID().
+ * in the same round trip (runTogether): the reading it points to is LAST_INSERT_ID() plus its
+ * row's place in that INSERT, which a shared transaction sends as one INSERT of its readings
+ * (and these upserts as one of their rows; no two readings of a batch are of one unit, since
+ * each claims its bank).
  */
 export const advanceUnitLatestStatement = (
   db: Database,
+  /** The reading's INSERT (insertReadingStatement), sent just before in the same round trip. */
+  reading: AnyStatement,
   values: {
     unitId: number;
     band: NonNullable<ReadingRow['band']>;
@@ -421,7 +454,7 @@ export const advanceUnitLatestStatement = (
     replaceBy: string | null;
     driftPoints: StoredDriftPoints;
   },
-) => statement(unitLatestUpsert(db), values, () => undefined);
+) => statement(unitLatestUpsert(db), values, () => undefined, { merge: unitLatestUpserts(db), follows: { statement: reading, offset: 'readingOffset' } });
 
 /** Flags not yet cleared (open or in hand) on these targets, as "kind target id" keys. */
 export async function unclearedFlagKeys(db: Executor, drafts: FlagDraft[]): Promise<Set<string>> {

@@ -167,7 +167,7 @@ async function storeReading(
     // The points kept with the unit's latest evaluation; read from the history only for a row stored without them.
     const earlier = outcome.unitHistory?.driftPoints ?? (await together([unitDriftHistoryStatement(tx, input.targetId, windowEnd)]))[0];
     const drift = unitDrift([...earlier, ...stored], windowEnd);
-    const advance = advanceUnitLatestStatement(tx, { unitId: input.targetId, recordedAt, ...outcome.unitResult, ...drift });
+    const advance = advanceUnitLatestStatement(tx, insert, { unitId: input.targetId, recordedAt, ...outcome.unitResult, ...drift });
     [readingId] = await together([insert, advance], { commit });
   } else {
     [readingId] = await together([insert], { commit });
