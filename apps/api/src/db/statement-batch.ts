@@ -36,7 +36,8 @@ interface Sendable {
   merge?: Merge;
   /**
    * An INSERT whose row this statement points to with `last_insert_id() + offset`: the value
-   * named `offset` is set to the row's place among the rows that INSERT went out with.
+   * named `offset` is set to the row's place among the rows that INSERT went out with (0 when
+   * the INSERT went in an earlier round trip, right only if it was the connection's last).
    */
   follows?: { statement: AnyStatement; offset: string };
 }
@@ -60,7 +61,7 @@ export function statement<Result, Value>(
 export interface Merge {
   /** Statements with the same key are merged. */
   key: string;
-  /** An INSERT's merge, which needs a connection whose INSERTs number their rows consecutively (consecutiveIds). */
+  /** An INSERT's merge, which needs a connection whose INSERTs number their rows consecutively (noteAutoIncrementMode). */
   insert?: boolean;
   /** The one statement for these statements' values, in their order. */
   build(values: ReadonlyArray<Record<string, unknown>>): { prepared: PreparedQuery<unknown>; values: Record<string, unknown> };
@@ -184,9 +185,12 @@ const preparedOn = new WeakMap<object, Set<number>>();
  */
 const consecutive = new WeakSet<object>();
 
+/** The promise wrapper is new at every checkout; the connection underneath is the lasting one. */
+const lastingOf = (connection: PoolConnection): object => (connection as unknown as { connection?: object }).connection ?? connection;
+
 /** Marks a connection for merged INSERTs once its server's auto-increment lock mode is known (db/connection-transaction.ts). */
 export function noteAutoIncrementMode(connection: PoolConnection, mode: number): void {
-  const lasting = (connection as unknown as { connection?: object }).connection ?? connection;
+  const lasting = lastingOf(connection);
   if (mode === 0 || mode === 1) consecutive.add(lasting);
   else consecutive.delete(lasting);
 }
@@ -259,8 +263,7 @@ export async function runTogether<const T extends readonly AnyStatement[]>(
   options: { commit?: boolean } = {},
 ): Promise<Answers<T>> {
   if (statements.length === 0) throw new Error('runTogether needs a statement');
-  // The promise wrapper is new at every checkout; the connection underneath is the lasting one.
-  const lasting = (connection as unknown as { connection?: object }).connection ?? connection;
+  const lasting = lastingOf(connection);
   let prepared = preparedOn.get(lasting);
   if (!prepared) preparedOn.set(lasting, (prepared = new Set()));
   const texts: string[] = [];
