@@ -2,6 +2,7 @@ import { and, eq, inArray, lt, ne, or, sql } from 'drizzle-orm';
 import type { Executor } from './executor';
 import type { Database } from '../db/client';
 import { perDatabase } from '../db/prepared';
+import { numberedPlaceholders, perCount } from '../db/statement-batch';
 import { sessions, userRoles, users, viewerSiteGrants } from '../db/schema/index';
 import type { Role } from './policy';
 
@@ -55,21 +56,16 @@ const sessionColumns = {
 };
 
 /** The lookup of `n` tokens at once, prepared once per database and count. */
-const sessionLookups = perDatabase((db) => {
-  const byCount = new Map<number, ReturnType<typeof build>>();
-  const build = (n: number) =>
+const sessionLookups = perDatabase((db) =>
+  perCount((n) =>
     db
       .select(sessionColumns)
       .from(sessions)
       .innerJoin(users, eq(users.id, sessions.userId))
-      .where(inArray(sessions.tokenHash, Array.from({ length: n }, (_, i) => sql.placeholder(`h${i}`))))
-      .prepare();
-  return (n: number) => {
-    let prepared = byCount.get(n);
-    if (!prepared) byCount.set(n, (prepared = build(n)));
-    return prepared;
-  };
-});
+      .where(inArray(sessions.tokenHash, numberedPlaceholders('h', n)))
+      .prepare(),
+  ),
+);
 
 type SessionRow = Awaited<ReturnType<ReturnType<ReturnType<typeof sessionLookups>>['execute']>>[number];
 type Waiter = { resolve: (row: SessionRow | undefined) => void; reject: (error: unknown) => void };

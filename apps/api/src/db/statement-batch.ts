@@ -69,15 +69,18 @@ export interface Merge {
   split(answer: unknown, values: ReadonlyArray<Record<string, unknown>>): unknown[];
 }
 
-/** Merged prepared queries, built once per handle and count (a query's SQL differs with its count). */
-function perCount(build: (n: number) => PreparedQuery<unknown>): (n: number) => PreparedQuery<unknown> {
-  const built = new Map<number, PreparedQuery<unknown>>();
+/** Prepared queries for n values at once (merged ones, an IN of n keys), built once per count: their SQL differs with it. */
+export function perCount<T>(build: (n: number) => T): (n: number) => T {
+  const built = new Map<number, T>();
   return (n) => {
     let prepared = built.get(n);
     if (!prepared) built.set(n, (prepared = build(n)));
     return prepared;
   };
 }
+
+/** Placeholders `name0` … `name{n-1}`, as `numbered` fills them (an IN of n keys, a merged statement). */
+export const numberedPlaceholders = (name: string, n: number) => Array.from({ length: n }, (_, i) => drizzleOrm.sql.placeholder(`${name}${i}`));
 
 /** Values named `name0`, `name1`, … for a merged statement: each statement's `name` under its place. */
 function numbered(values: ReadonlyArray<Record<string, unknown>>, names: readonly string[]): Record<string, unknown> {

@@ -18,7 +18,7 @@ import {
 import { offset } from '../../db/versioned';
 import type { Database } from '../../db/client';
 import { perDatabase } from '../../db/prepared';
-import { mergedInsert, mergedLookup, runStatement, statement, type AnyStatement } from '../../db/statement-batch';
+import { mergedInsert, mergedLookup, numberedPlaceholders, runStatement, statement, type AnyStatement } from '../../db/statement-batch';
 import type { FlagDraft, ReadingTarget } from './evaluation-types';
 import type { WorkOrderRow } from '../work-orders/order-guard';
 import type { StepUnit } from './evaluate-step';
@@ -89,9 +89,6 @@ const lockedOrderColumns = {
 
 export type LockedOrder = Pick<WorkOrderRow, keyof typeof lockedOrderColumns>;
 
-/** Placeholders `name0` … `name{n-1}`, for a statement merged from n (db/statement-batch.ts). */
-const placeholders = (name: string, n: number) => Array.from({ length: n }, (_, i) => sql.placeholder(`${name}${i}`));
-
 const orderAndBankLockWhere = (db: Database, where: SQL) =>
   db
     .select({ order: lockedOrderColumns, bankId: banks.id })
@@ -104,7 +101,7 @@ const orderAndBankLockWhere = (db: Database, where: SQL) =>
 const orderAndBankLock = perDatabase((db) => orderAndBankLockWhere(db, eq(workOrders.id, sql.placeholder('orderId'))));
 /** The locks of a shared transaction's readings, sent together, as one statement (InnoDB then locks the orders in the order of their ids). */
 const orderAndBankLocks = perDatabase((db) =>
-  mergedLookup<{ order: LockedOrder }>('order and bank lock', 'orderId', (n) => orderAndBankLockWhere(db, inArray(workOrders.id, placeholders('orderId', n))), (row) => row.order.id),
+  mergedLookup<{ order: LockedOrder }>('order and bank lock', 'orderId', (n) => orderAndBankLockWhere(db, inArray(workOrders.id, numberedPlaceholders('orderId', n))), (row) => row.order.id),
 );
 
 /**
@@ -169,7 +166,7 @@ const unitPlaceWhere = (db: Database, where: SQL) =>
 
 const unitPlaceForReading = perDatabase((db) => unitPlaceWhere(db, eq(capacitorUnits.id, sql.placeholder('unitId'))));
 const unitPlacesForReadings = perDatabase((db) =>
-  mergedLookup<{ unit: { id: number } }>('unit place', 'unitId', (n) => unitPlaceWhere(db, inArray(capacitorUnits.id, placeholders('unitId', n))), (row) => row.unit.id),
+  mergedLookup<{ unit: { id: number } }>('unit place', 'unitId', (n) => unitPlaceWhere(db, inArray(capacitorUnits.id, numberedPlaceholders('unitId', n))), (row) => row.unit.id),
 );
 
 export interface DriftPoint {
